@@ -9,6 +9,10 @@ final class Numbers {
 
     static double parse(String what, String token) {
         String t = token.trim();
+        String lower = t.toLowerCase(java.util.Locale.ROOT);
+        if (lower.contains("nan") || lower.contains("inf")) {
+            throw new IllegalArgumentException(what + " must be a finite number: " + t);
+        }
         try {
             double v;
             int slash = t.indexOf('/');

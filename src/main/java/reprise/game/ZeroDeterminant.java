@@ -147,7 +147,7 @@ public final class ZeroDeterminant {
         double[] range = phiRange(bracket, delta, p0);
         double lo = range[0];
         double hi = range[1];
-        if (!(hi > lo + SLACK) || !(hi > SLACK)) {
+        if (!(hi >= lo - SLACK) || !(hi > SLACK)) {
             throw new IllegalArgumentException("no valid " + what + " exists in this game: no phi > 0 keeps all "
                 + "four cooperation probabilities in [0, 1]" + (delta < 1 ? " (try a larger continuation "
                 + "probability)" : ""));
