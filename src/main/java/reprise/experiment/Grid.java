@@ -1,0 +1,109 @@
+package reprise.experiment;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import reprise.game.Horizon;
+import reprise.game.Match;
+import reprise.game.Noise;
+import reprise.game.Player;
+import reprise.game.Strategies;
+
+/** Expands an experiment's grid into cases. */
+final class Grid {
+
+    static final Pattern PLACEHOLDER = Pattern.compile("\\{([A-Za-z_][A-Za-z0-9_]*)}");
+
+    private Grid() {
+    }
+
+    static List<Case> expand(Experiment e) {
+        List<Case> out = new ArrayList<>();
+        List<Map<String, Double>> points = parameterPoints(e.parameters());
+        for (Experiment.Pair pair : e.pairs()) {
+            List<String> used = placeholders(pair.x() + " " + pair.y());
+            List<Map<String, Double>> own = new ArrayList<>();
+            for (Map<String, Double> p : points) {
+                Map<String, Double> sub = new LinkedHashMap<>();
+                p.forEach((k, v) -> {
+                    if (used.contains(k)) {
+                        sub.put(k, v);
+                    }
+                });
+                if (!own.contains(sub)) {
+                    own.add(sub);
+                }
+            }
+            for (Map<String, Double> params : own) {
+                String xs = substitute(pair.x(), params);
+                String ys = substitute(pair.y(), params);
+                for (String noise : e.noise()) {
+                    for (String mis : e.misperception()) {
+                        for (Horizon h : e.horizons()) {
+                            double[] ex = ExperimentFile.pair(noise);
+                            double[] hx = ExperimentFile.pair(mis);
+                            Match m = new Match(e.game(), Strategies.parse(xs, e.game(), Player.X),
+                                Strategies.parse(ys, e.game(), Player.Y), new Noise(ex[0], ex[1], hx[0], hx[1]));
+                            StringBuilder id = new StringBuilder(pair.name());
+                            params.forEach((k, v) -> id.append('/').append(k).append('=').append(ExperimentFile.num(v)));
+                            if (e.noise().size() > 1) {
+                                id.append("/noise=").append(noise);
+                            }
+                            if (e.misperception().size() > 1) {
+                                id.append("/misperception=").append(mis);
+                            }
+                            if (e.horizons().size() > 1) {
+                                id.append('/').append(h.describe());
+                            }
+                            out.add(new Case(out.size(), id.toString(), pair.name(), xs, ys, noise, mis, h,
+                                Map.copyOf(params), m));
+                        }
+                    }
+                }
+            }
+        }
+        return List.copyOf(out);
+    }
+
+    static List<String> placeholders(String text) {
+        List<String> names = new ArrayList<>();
+        Matcher m = PLACEHOLDER.matcher(text);
+        while (m.find()) {
+            if (!names.contains(m.group(1))) {
+                names.add(m.group(1));
+            }
+        }
+        return names;
+    }
+
+    static String substitute(String spec, Map<String, Double> params) {
+        Matcher m = PLACEHOLDER.matcher(spec);
+        StringBuilder sb = new StringBuilder();
+        while (m.find()) {
+            Double v = params.get(m.group(1));
+            m.appendReplacement(sb, Matcher.quoteReplacement(v == null ? m.group() : ExperimentFile.num(v)));
+        }
+        m.appendTail(sb);
+        return sb.toString();
+    }
+
+    static List<Map<String, Double>> parameterPoints(Map<String, List<Double>> axes) {
+        List<Map<String, Double>> points = new ArrayList<>();
+        points.add(new LinkedHashMap<>());
+        for (Map.Entry<String, List<Double>> axis : axes.entrySet()) {
+            List<Map<String, Double>> next = new ArrayList<>();
+            for (Map<String, Double> p : points) {
+                for (double v : axis.getValue()) {
+                    Map<String, Double> q = new LinkedHashMap<>(p);
+                    q.put(axis.getKey(), v);
+                    next.add(q);
+                }
+            }
+            points = next;
+        }
+        return points;
+    }
+}
