@@ -403,10 +403,15 @@ public final class ExperimentFile {
         double[] v = new double[2];
         for (int i = 0; i < parts.length; i++) {
             double d;
+            String t = parts[i].trim();
+            String lower = t.toLowerCase(Locale.ROOT);
+            if (lower.contains("nan") || lower.contains("inf")) {
+                throw new IllegalArgumentException("must be a finite probability: '" + t + "'");
+            }
             try {
-                d = Double.parseDouble(parts[i].trim());
+                d = Double.parseDouble(t);
             } catch (NumberFormatException e) {
-                throw new IllegalArgumentException("is not a number: '" + parts[i].trim() + "'", e);
+                throw new IllegalArgumentException("is not a number: '" + t + "'", e);
             }
             if (!(d >= 0 && d <= 1)) {
                 throw new IllegalArgumentException("must be a probability in [0, 1]: " + parts[i].trim());

@@ -1,0 +1,203 @@
+package reprise.experiment;
+
+import java.io.IOException;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
+import reprise.game.Horizon;
+
+/**
+ * A researcher's own claimed values, read from a CSV file and matched to the cases of an experiment.
+ *
+ * <p>Format (documented in README.md, "Claims files"): a header row; a {@code pair} column naming the
+ * pair; optional key columns {@code noise}, {@code misperception}, {@code rounds} or {@code continuation}
+ * and one per grid parameter, which pick the grid points the row is about (a key column left out, or an
+ * empty cell, means "every value of that axis"); and one or more value columns among {@link #QUANTITIES}.
+ * An empty value cell claims nothing. Every row must match at least one case, and no two rows may claim
+ * the same quantity of the same case.
+ */
+public final class Claims {
+
+    /** The quantities a claim can be about. */
+    public static final List<String> QUANTITIES = List.of("CC", "CD", "DC", "DD", "coop_x", "coop_y", "payoff_x",
+        "payoff_y");
+
+    private Claims() {
+    }
+
+    /**
+     * One claimed value.
+     *
+     * @param value the claimed number
+     * @param line the CSV line it came from (header is line 1)
+     */
+    public record Claim(double value, long line) {
+    }
+
+    /**
+     * Reads a claims file and matches it to the experiment's cases.
+     *
+     * @param file the CSV file
+     * @param experiment the experiment
+     * @param cases its expanded cases
+     * @return for each case index that has claims, the claims by quantity name
+     * @throws InvalidExperimentException listing every problem with file, line and column
+     */
+    public static Map<Integer, Map<String, Claim>> read(Path file, Experiment experiment, List<Case> cases) {
+        Problems problems = new Problems(file.toString());
+        Map<Integer, Map<String, Claim>> out = new LinkedHashMap<>();
+        List<String> keyColumns = new ArrayList<>(List.of("pair", "noise", "misperception",
+            experiment.horizons().get(0) instanceof Horizon.Rounds ? "rounds" : "continuation"));
+        keyColumns.addAll(experiment.parameters().keySet());
+        List<String> known = new ArrayList<>(keyColumns);
+        known.addAll(QUANTITIES);
+        CSVFormat format = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).setTrim(true)
+            .setIgnoreEmptyLines(true).setCommentMarker('#').build();
+        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8); CSVParser parser = format.parse(r)) {
+            List<String> header = parser.getHeaderNames();
+            if (!header.contains("pair")) {
+                problems.add(1, "pair", "column is missing; the header needs pair and at least one of "
+                    + String.join(", ", QUANTITIES));
+            }
+            List<String> valueColumns = new ArrayList<>();
+            for (String h : header) {
+                if (!known.contains(h)) {
+                    problems.add(1, h, "unknown column" + Problems.didYouMean(h, known) + "; known: "
+                        + String.join(", ", known));
+                } else if (QUANTITIES.contains(h)) {
+                    valueColumns.add(h);
+                }
+            }
+            if (valueColumns.isEmpty()) {
+                problems.add(1, "header", "no value column; give at least one of " + String.join(", ", QUANTITIES));
+            }
+            problems.throwIfAny();
+            for (CSVRecord rec : parser) {
+                long line = rec.getRecordNumber() + 1;
+                if (!rec.isConsistent()) {
+                    problems.add((int) line, "row", "has " + rec.size() + " cells, the header has " + header.size());
+                    continue;
+                }
+                Map<String, Double> values = new LinkedHashMap<>();
+                for (String q : valueColumns) {
+                    String cell = rec.get(q);
+                    if (cell.isEmpty()) {
+                        continue;
+                    }
+                    try {
+                        double v = Double.parseDouble(cell);
+                        if (!Double.isFinite(v)) {
+                            throw new NumberFormatException();
+                        }
+                        values.put(q, v);
+                    } catch (NumberFormatException e) {
+                        problems.add((int) line, q, "must be a finite number: '" + cell + "'");
+                    }
+                }
+                List<Case> matches = new ArrayList<>();
+                for (Case c : cases) {
+                    if (matches(c, rec, header)) {
+                        matches.add(c);
+                    }
+                }
+                if (matches.isEmpty()) {
+                    problems.add((int) line, "row", "matches no grid point of the experiment (" + describe(rec, header)
+                        + ")");
+                    continue;
+                }
+                for (Case c : matches) {
+                    Map<String, Claim> m = out.computeIfAbsent(c.index(), k -> new LinkedHashMap<>());
+                    for (Map.Entry<String, Double> v : values.entrySet()) {
+                        Claim prev = m.put(v.getKey(), new Claim(v.getValue(), line));
+                        if (prev != null) {
+                            problems.add((int) line, v.getKey(), "case " + c.id() + " already has a claim for "
+                                + v.getKey() + " from line " + prev.line());
+                        }
+                    }
+                }
+            }
+        } catch (IOException | IllegalArgumentException e) {
+            if (e instanceof InvalidExperimentException ie) {
+                throw ie;
+            }
+            problems.add(0, "file", "cannot be read as CSV: " + e.getMessage());
+        }
+        problems.throwIfAny();
+        return out;
+    }
+
+    private static boolean matches(Case c, CSVRecord rec, List<String> header) {
+        for (String h : header) {
+            String cell = rec.get(h);
+            if (cell.isEmpty() || QUANTITIES.contains(h)) {
+                continue;
+            }
+            switch (h) {
+                case "pair":
+                    if (!cell.equals(c.pair())) {
+                        return false;
+                    }
+                    break;
+                case "noise":
+                    if (!sameNumbers(cell, c.noise())) {
+                        return false;
+                    }
+                    break;
+                case "misperception":
+                    if (!sameNumbers(cell, c.misperception())) {
+                        return false;
+                    }
+                    break;
+                case "rounds":
+                    if (!(c.horizon() instanceof Horizon.Rounds r) || !sameNumbers(cell, Long.toString(r.count()))) {
+                        return false;
+                    }
+                    break;
+                case "continuation":
+                    if (!(c.horizon() instanceof Horizon.Continuation d)
+                        || !sameNumbers(cell, Double.toString(d.probability()))) {
+                        return false;
+                    }
+                    break;
+                default:
+                    Double v = c.parameters().get(h);
+                    if (v == null || !sameNumbers(cell, Double.toString(v))) {
+                        return false;
+                    }
+            }
+        }
+        return true;
+    }
+
+    private static boolean sameNumbers(String a, String b) {
+        try {
+            double[] x = ExperimentFile.pair(a);
+            double[] y = ExperimentFile.pair(b);
+            return x[0] == y[0] && x[1] == y[1];
+        } catch (IllegalArgumentException e) {
+            try {
+                return Double.parseDouble(a) == Double.parseDouble(b);
+            } catch (NumberFormatException n) {
+                return a.equals(b);
+            }
+        }
+    }
+
+    private static String describe(CSVRecord rec, List<String> header) {
+        List<String> parts = new ArrayList<>();
+        for (String h : header) {
+            if (!QUANTITIES.contains(h) && !rec.get(h).isEmpty()) {
+                parts.add(h + "=" + rec.get(h));
+            }
+        }
+        return String.join(", ", parts);
+    }
+}
