@@ -252,7 +252,12 @@ public final class ExperimentFile {
         String outText = string(top, "output", null, problems);
         Path output = Path.of(outText != null ? outText : "results/" + (name == null ? "experiment" : name));
 
-        checkPlaceholders(pairs, parameters, line(gridNode), problems);
+        boolean continuation = !horizons.isEmpty() && horizons.get(0) instanceof Horizon.Continuation;
+        if (parameters.containsKey(Grid.CONTINUATION)) {
+            problems.add(line(gridNode), "grid.parameters.continuation", "is a reserved name: {continuation} "
+                + "stands for each case's continuation probability");
+        }
+        checkPlaceholders(pairs, parameters, continuation, line(gridNode), problems);
         problems.throwIfAny();
 
         Experiment e = new Experiment(name, description, file, hash, gameText, game, List.copyOf(pairs),
@@ -264,11 +269,14 @@ public final class ExperimentFile {
     }
 
     private static void checkPlaceholders(List<Experiment.Pair> pairs, Map<String, List<Double>> parameters,
-        int gridLine, Problems problems) {
+        boolean continuation, int gridLine, Problems problems) {
         List<String> used = new ArrayList<>();
         for (Experiment.Pair p : pairs) {
             for (String ph : Grid.placeholders(p.x() + " " + p.y())) {
-                if (!parameters.containsKey(ph)) {
+                if (ph.equals(Grid.CONTINUATION) && !continuation) {
+                    problems.add(p.line(), "pairs." + p.name(), "uses {continuation} but the grid has no "
+                        + "continuation: axis");
+                } else if (!parameters.containsKey(ph) && !ph.equals(Grid.CONTINUATION)) {
                     problems.add(p.line(), "pairs." + p.name(), "uses {" + ph + "} but grid.parameters has no '" + ph
                         + "'" + Problems.didYouMean(ph, List.copyOf(parameters.keySet())));
                 }
@@ -287,10 +295,12 @@ public final class ExperimentFile {
         for (Experiment.Pair p : e.pairs()) {
             List<String> seen = new ArrayList<>();
             for (Map<String, Double> point : points) {
-                String xs = Grid.substitute(p.x(), point);
-                String ys = Grid.substitute(p.y(), point);
-                check(xs, e.game(), Player.X, seen, p, "x", problems);
-                check(ys, e.game(), Player.Y, seen, p, "y", problems);
+                for (Horizon h : e.horizons()) {
+                    String xs = Grid.substitute(p.x(), Grid.withHorizon(point, h));
+                    String ys = Grid.substitute(p.y(), Grid.withHorizon(point, h));
+                    check(xs, e.game(), Player.X, seen, p, "x", problems);
+                    check(ys, e.game(), Player.Y, seen, p, "y", problems);
+                }
             }
         }
     }

@@ -38,11 +38,11 @@ final class Grid {
                 }
             }
             for (Map<String, Double> params : own) {
-                String xs = substitute(pair.x(), params);
-                String ys = substitute(pair.y(), params);
                 for (String noise : e.noise()) {
                     for (String mis : e.misperception()) {
                         for (Horizon h : e.horizons()) {
+                            String xs = substitute(pair.x(), withHorizon(params, h));
+                            String ys = substitute(pair.y(), withHorizon(params, h));
                             double[] ex = ExperimentFile.pair(noise);
                             double[] hx = ExperimentFile.pair(mis);
                             Match m = new Match(e.game(), Strategies.parse(xs, e.game(), Player.X),
@@ -66,6 +66,18 @@ final class Grid {
             }
         }
         return List.copyOf(out);
+    }
+
+    /** The name under which a case's continuation probability can be written into a strategy spec. */
+    static final String CONTINUATION = "continuation";
+
+    static Map<String, Double> withHorizon(Map<String, Double> params, Horizon h) {
+        if (!(h instanceof Horizon.Continuation c)) {
+            return params;
+        }
+        Map<String, Double> m = new LinkedHashMap<>(params);
+        m.put(CONTINUATION, c.probability());
+        return m;
     }
 
     static List<String> placeholders(String text) {

@@ -65,6 +65,26 @@ class ExperimentFileTest {
         assertEquals(Map.of("chi", 3.0), cases.get(11).parameters());
     }
 
+    static Stream<Path> bundledExperiments() throws IOException {
+        try (Stream<Path> s = Files.list(Path.of("experiments"))) {
+            return s.filter(p -> p.toString().endsWith(".yaml")).sorted().toList().stream();
+        }
+    }
+
+    @ParameterizedTest
+    @MethodSource("bundledExperiments")
+    void bundledExperimentsAreValid(Path file) {
+        Experiment e = ExperimentFile.read(file);
+        assertTrue(e.cases().size() >= 2, file.toString());
+    }
+
+    @Test
+    void continuationCanBeWrittenIntoAStrategy() {
+        Experiment e = ExperimentFile.read(Path.of("experiments/zd-continuation.yaml"));
+        Case c = e.cases().get(2);
+        assertEquals("extort:chi=2,phi=0.1,delta=0.9", c.xSpec());
+    }
+
     static Stream<Arguments> badFiles() {
         return Stream.of(
             Arguments.of("experiment: x\npairs: [\n", "syntax: not valid YAML"),
