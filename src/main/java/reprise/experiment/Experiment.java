@@ -71,8 +71,11 @@ public record Experiment(String name, String description, Path file, String sha2
         TRANSITIONS,
         /** State at chosen rounds across games against v1 M^(t-1). */
         SNAPSHOTS,
-        /** Equivalence of each quantity with the exact value within the tolerance. */
-        EQUIVALENCE
+        /**
+         * Whether the stationary (long-run) value describes games of this length within the tolerance:
+         * descriptive rows that never change the exit code (write a claim to assert a value).
+         */
+        STATIONARY
     }
 
     /** Multiple-testing corrections. */
