@@ -89,7 +89,12 @@ public final class TransitionTest {
      * @return statistic, degrees of freedom sum_i (d_i - 1), p-value, and a note
      */
     public TestResult test(long[][] counts, double[][] hypothesis) {
-        int m = validate(counts, hypothesis);
+        validate(counts, hypothesis);
+        return rectangular(counts, hypothesis);
+    }
+
+    private TestResult rectangular(long[][] counts, double[][] hypothesis) {
+        int m = counts.length;
         double total = 0;
         int df = 0;
         for (int i = 0; i < m; i++) {
@@ -149,7 +154,7 @@ public final class TransitionTest {
                 p[i][k] += hypothesis[i][j];
             }
         }
-        return test(c, p);
+        return rectangular(c, p);
     }
 
     private double row(long[] n, double[] p, int i) {
