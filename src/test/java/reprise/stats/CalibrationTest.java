@@ -107,6 +107,46 @@ class CalibrationTest {
         assertTrue(pooled > 60, "seed " + seed + ": pooled rejected only " + pooled);
     }
 
+    /**
+     * Games of geometric length (continuation 0.8, mean 5) with iid rounds p = (0.4, 0.3, 0.2, 0.1). By the
+     * law of total covariance (derived by hand), Cov(N) = E[L] (diag p - p p') + Var(L) p p' with E[L] = 5 and
+     * Var(L) = 0.8 / 0.2^2 = 20. The Wald ratio test (exact covariance) and the Hotelling ratio test
+     * (sample covariance) of E[N] / E[L] = p each stay within the budget over K = 200 experiments of 100 games.
+     */
+    @Test
+    void ratioTestsOnGeometricLengthsFalseAlarmRate() {
+        long seed = 505L;
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        double[] p = {0.4, 0.3, 0.2, 0.1};
+        double[][] cov = WaldHotellingTest.multinomialCovariance(p, 5);
+        double[] mu = new double[4];
+        for (int i = 0; i < 4; i++) {
+            mu[i] = 5 * p[i];
+            for (int j = 0; j < 4; j++) {
+                cov[i][j] += 20 * p[i] * p[j];
+            }
+        }
+        int wald = 0;
+        int hotelling = 0;
+        for (int k = 0; k < K; k++) {
+            long[][] games = new long[100][4];
+            for (long[] game : games) {
+                do {
+                    game[Chains.draw(p, rng)]++;
+                } while (rng.nextDouble() < 0.8);
+            }
+            GameSummary s = GameSummary.of(games);
+            if (WaldTest.withDefaults().testRatio(s, mu, cov).reject(ALPHA)) {
+                wald++;
+            }
+            if (HotellingTest.withDefaults().testRatio(s, p).reject(ALPHA)) {
+                hotelling++;
+            }
+        }
+        assertTrue(wald <= BUDGET, "seed " + seed + ": Wald rejected " + wald);
+        assertTrue(hotelling <= BUDGET, "seed " + seed + ": Hotelling rejected " + hotelling);
+    }
+
     @Test
     void summaryOfEvenlySpreadPValues() {
         // p_i = (i + 0.5) / 100: exactly 5 are below 0.05, so the rate is 0.05 and the binomial check passes;
