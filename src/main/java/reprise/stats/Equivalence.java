@@ -1,0 +1,157 @@
+package reprise.stats;
+
+import java.util.Locale;
+import java.util.OptionalLong;
+
+/**
+ * Does an observed mean agree with a target (an exact prediction) within a tolerance h that the user
+ * chooses? Two one-sided tests (TOST) beside the ordinary difference test, and a plain verdict.
+ *
+ * <p>With d = estimate - target, standard error se and reference distribution T (Student t with the
+ * estimate's degrees of freedom, or normal), at level alpha:
+ * <ul>
+ *   <li>TOST p-value = max(P(T &gt; (d + h)/se), P(T &gt; (h - d)/se)): small when -h &lt; d &lt; h is
+ *       established; equivalently the (1 - 2 alpha) interval d &plusmn; q se, q = the 1 - alpha quantile,
+ *       lies inside (-h, h).</li>
+ *   <li>Non-equivalence p-value = min(P(T &gt; (d - h)/se), P(T &gt; (-h - d)/se)): small when |d| &gt; h is
+ *       established in one direction; equivalently that (1 - 2 alpha) interval lies entirely outside
+ *       [-h, h].</li>
+ *   <li>Ordinary difference p-value = 2 P(T &gt; |d|/se), reported for reference (it answers "is there any
+ *       difference", which a large enough study always finds).</li>
+ * </ul>
+ * <b>Verdict.</b> {@link Verdict#AGREES} iff TOST p &lt; alpha; {@link Verdict#DISAGREES} iff the
+ * non-equivalence p &lt; alpha (then the estimate is outside &plusmn;h and the one-sided difference test
+ * also rejects); otherwise {@link Verdict#INCONCLUSIVE}. The first two cannot both hold. For an
+ * inconclusive result the number of additional games needed is the smallest G' with
+ * z_{1-alpha} se sqrt(G/G') &lt; | h - |d| |, i.e. assuming the estimate stays where it is and the standard
+ * error shrinks as 1/sqrt(G) (normal quantile, as for large G); none is given when |d| = h.
+ *
+ * <p>References:
+ * <ul>
+ *   <li>Schuirmann, D.J. (1987). A comparison of the two one-sided tests procedure and the power approach
+ *       for assessing the equivalence of average bioavailability. Journal of Pharmacokinetics and
+ *       Biopharmaceutics 15(6), 657-680.</li>
+ * </ul>
+ */
+public final class Equivalence {
+
+    /** The outcome in plain words. */
+    public enum Verdict {
+        /** The mean is within the tolerance of the target (TOST rejects non-equivalence at alpha). */
+        AGREES,
+        /** The mean differs from the target by more than the tolerance (shown at alpha, one-sided). */
+        DISAGREES,
+        /** Neither can be shown with the present data. */
+        INCONCLUSIVE
+    }
+
+    /**
+     * The full outcome.
+     *
+     * @param estimate the observed mean
+     * @param target the value it is compared with
+     * @param tolerance h &gt; 0
+     * @param standardError se of the estimate
+     * @param interval the (1 - 2 alpha) interval of the estimate, the one TOST uses
+     * @param equivalencePValue the TOST p-value
+     * @param nonEquivalencePValue p-value for |d| &gt; h
+     * @param differencePValue the ordinary two-sided p-value for d = 0
+     * @param verdict AGREES, DISAGREES or INCONCLUSIVE
+     * @param additionalGamesNeeded for INCONCLUSIVE, how many more replicates would settle it if the
+     *     estimate stayed put; empty if conclusive or if |d| = h
+     */
+    public record Result(double estimate, double target, double tolerance, double standardError, Interval interval,
+                         double equivalencePValue, double nonEquivalencePValue, double differencePValue,
+                         Verdict verdict, OptionalLong additionalGamesNeeded) {
+    }
+
+    /**
+     * Finite-horizon bias beside sampling error: a finite game's expected mean f_n differs from the
+     * stationary value pi by f_n - pi, however many games are played.
+     *
+     * @param bias f_n - pi
+     * @param standardError the sampling standard error of the observed mean
+     * @param biasInStandardErrors bias / standard error (infinite if the standard error is 0)
+     * @param explanation a sentence for the user
+     */
+    public record BiasReport(double bias, double standardError, double biasInStandardErrors, String explanation) {
+    }
+
+    private Equivalence() {
+    }
+
+    /**
+     * TOST, non-equivalence and difference tests and the verdict (see the class description).
+     *
+     * @param estimate the observed mean with its standard error, degrees of freedom and replicates G
+     * @param target the predicted value
+     * @param tolerance h &gt; 0, the largest difference that counts as agreement
+     * @param alpha the level in (0, 0.5)
+     * @return the result
+     */
+    public static Result assess(Estimate estimate, double target, double tolerance, double alpha) {
+        Checks.finite("target", target);
+        Checks.positive("tolerance h", tolerance);
+        if (!(alpha > 0 && alpha < 0.5)) {
+            throw new IllegalArgumentException("alpha must be in (0, 0.5): " + alpha);
+        }
+        double d = estimate.value() - target;
+        double se = estimate.standardError();
+        double df = estimate.degreesOfFreedom();
+        double h = tolerance;
+        double pEquivalent;
+        double pNotEquivalent;
+        double pDifference;
+        if (se == 0) {
+            pEquivalent = Math.abs(d) < h ? 0 : 1;
+            pNotEquivalent = Math.abs(d) > h ? 0 : 1;
+            pDifference = d == 0 ? 1 : 0;
+        } else {
+            pEquivalent = Math.max(Estimate.survival(df, (d + h) / se), Estimate.survival(df, (h - d) / se));
+            pNotEquivalent = Math.min(Estimate.survival(df, (d - h) / se), Estimate.survival(df, (-h - d) / se));
+            pDifference = Math.min(1, 2 * Estimate.survival(df, Math.abs(d) / se));
+        }
+        Verdict verdict = pEquivalent < alpha ? Verdict.AGREES
+            : pNotEquivalent < alpha ? Verdict.DISAGREES : Verdict.INCONCLUSIVE;
+        OptionalLong more = OptionalLong.empty();
+        double margin = Math.abs(h - Math.abs(d));
+        if (verdict == Verdict.INCONCLUSIVE && margin > 0) {
+            double z = Estimate.quantile(Double.POSITIVE_INFINITY, alpha);
+            double ratio = z * se / margin;
+            double needed = estimate.replicates() * ratio * ratio;
+            long total = (long) Math.min(Long.MAX_VALUE / 2.0, Math.floor(needed) + 1);
+            more = OptionalLong.of(Math.max(1, total - estimate.replicates()));
+        }
+        double q = Estimate.quantile(df, alpha);
+        Interval interval = new Interval(estimate.value(), estimate.value() - q * se, estimate.value() + q * se,
+            1 - 2 * alpha);
+        return new Result(estimate.value(), target, h, se, interval, pEquivalent, pNotEquivalent, pDifference,
+            verdict, more);
+    }
+
+    /**
+     * Separates finite-horizon bias from sampling error.
+     *
+     * @param finiteHorizonMean f_n, the exact expected mean for games of the length played
+     * @param stationaryMean pi, the stationary (long-run) value a claim refers to
+     * @param estimate the observed mean with its standard error
+     * @return the report; its sentence says whether the bias, the noise, or neither dominates
+     */
+    public static BiasReport biasReport(double finiteHorizonMean, double stationaryMean, Estimate estimate) {
+        double bias = Checks.finite("finite-horizon mean", finiteHorizonMean)
+            - Checks.finite("stationary mean", stationaryMean);
+        double se = estimate.standardError();
+        double ratio = se == 0 ? (bias == 0 ? 0 : Double.POSITIVE_INFINITY) : bias / se;
+        String sentence;
+        if (Math.abs(ratio) >= 2) {
+            sentence = String.format(Locale.ROOT, "The finite-horizon bias f_n - pi = %.4g is %.1f standard errors "
+                + "(se = %.3g): games of this length do not reach the stationary value, so a stationary claim "
+                + "fails even if the exact finite-horizon prediction is right; more games will not remove it, "
+                + "longer games will.", bias, ratio, se);
+        } else {
+            sentence = String.format(Locale.ROOT, "The finite-horizon bias f_n - pi = %.4g is %.1f standard errors "
+                + "(se = %.3g): small against the sampling error at this number of games.", bias, ratio, se);
+        }
+        return new BiasReport(bias, se, ratio, sentence);
+    }
+}

@@ -1,0 +1,54 @@
+package reprise.stats;
+
+/**
+ * The outcome of a significance test.
+ *
+ * <p>{@code pValue} is an upper-tail probability computed from a survival function (or an exact or Monte
+ * Carlo tail sum where the test says so). A p-value of exactly 0 with a non-empty {@code note} means the
+ * data are impossible under the hypothesis (for example a transition the hypothesis gives probability 0,
+ * or a zero-variance component whose observed value differs from its expectation); the statistic is then
+ * {@link Double#POSITIVE_INFINITY}.
+ *
+ * @param statistic the test statistic (chi-square, T^2, ...), or +infinity for an impossible outcome
+ * @param degreesOfFreedom the (numerator) degrees of freedom of the reference distribution; 0 when
+ *     nothing was left to test
+ * @param pValue the p-value in [0, 1]
+ * @param note a one-line remark on how the test was done (method used, components dropped, why p = 0);
+ *     empty when there is nothing to say
+ */
+public record TestResult(double statistic, double degreesOfFreedom, double pValue, String note) {
+
+    /**
+     * Validates the result.
+     *
+     * @param statistic not NaN
+     * @param degreesOfFreedom at least 0
+     * @param pValue in [0, 1]
+     * @param note not null
+     */
+    public TestResult {
+        if (Double.isNaN(statistic)) {
+            throw new IllegalArgumentException("test statistic must not be NaN");
+        }
+        Checks.nonNegative("degrees of freedom", degreesOfFreedom);
+        Checks.probability("p-value", pValue);
+        if (note == null) {
+            throw new IllegalArgumentException("note must not be null (use an empty string)");
+        }
+    }
+
+    /**
+     * Whether the hypothesis is rejected at level alpha, that is whether {@code pValue < alpha}.
+     *
+     * @param alpha the significance level in (0, 1)
+     * @return true if rejected
+     */
+    public boolean reject(double alpha) {
+        Checks.level("significance level alpha", alpha);
+        return pValue < alpha;
+    }
+
+    static TestResult impossible(double degreesOfFreedom, String why) {
+        return new TestResult(Double.POSITIVE_INFINITY, degreesOfFreedom, 0, why);
+    }
+}
