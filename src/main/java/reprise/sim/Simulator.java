@@ -51,6 +51,7 @@ public final class Simulator {
     private final int historyMemory;
     private final Plan plan;
     private final String configuration;
+    private final long chunkReplicates;
 
     /**
      * Prepares a run: checks the agents and the memory the tallies need.
@@ -61,7 +62,13 @@ public final class Simulator {
      *     estimate)
      */
     public Simulator(SimulationSpec spec) {
+        this(spec, 0);
+    }
+
+    /** With a fixed chunk size in replicates (0: derived from the spec); for tests of the chunking. */
+    Simulator(SimulationSpec spec, long chunkReplicates) {
         this.spec = spec;
+        this.chunkReplicates = chunkReplicates;
         Match m = spec.match();
         Agents.create(m.x());
         Agents.create(m.y());
@@ -154,8 +161,8 @@ public final class Simulator {
                 + ": [" + from + ", " + to + ")");
         }
         long count = to - from;
-        long chunk = (long) Math.max(1, Math.min(1 << 20, Math.floor(ROUNDS_PER_CHUNK
-            / spec.horizon().expectedLength())));
+        long chunk = chunkReplicates > 0 ? chunkReplicates : (long) Math.max(1, Math.min(1 << 20,
+            Math.floor(ROUNDS_PER_CHUNK / spec.horizon().expectedLength())));
         long chunks = (count + chunk - 1) / chunk;
         int workers = (int) Math.min(spec.threads(), chunks);
         double expected = count * spec.horizon().expectedLength();
