@@ -216,7 +216,7 @@ public final class Simulator {
         Progress progress) {
         for (long c = nextChunk.getAndIncrement(); c < chunks; c = nextChunk.getAndIncrement()) {
             if (Thread.currentThread().isInterrupted()) {
-                return;
+                throw new IllegalStateException("simulation interrupted after " + c + " of " + chunks + " chunks");
             }
             long a = from + c * chunk;
             long b = Math.min(to, a + chunk);
