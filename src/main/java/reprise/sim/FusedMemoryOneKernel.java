@@ -1,0 +1,128 @@
+package reprise.sim;
+
+import reprise.game.MemoryStrategy;
+import reprise.game.Noise;
+import reprise.game.State;
+
+/**
+ * The fast path for two memory-one players (reactive strategies included): one 64-bit draw per round.
+ *
+ * <p>Implementation note. A memory-one player's next intention depends only on its perception of the
+ * last round, and a perception is a fresh independent misreading of the true last round. So, given the
+ * true state s (X's view) of the last round, X cooperates with probability
+ * c_X(s) = (1 - e_X) q_X(s) + e_X (1 - q_X(s)), q_X(s) = (1 - h_X) p_X(s) + h_X p_X(s xor 1), and Y,
+ * whose own view of s is m = mirror(s), with c_Y(s) = (1 - e_Y) q_Y(m) + e_Y (1 - q_Y(m)),
+ * q_Y(m) = (1 - h_Y) p_Y(m) + h_Y p_Y(m xor 1); the two moves are independent given s. These are the
+ * same events as the literal path, summed over the unobserved intention and perception. Each round
+ * takes one {@code nextLong()}; X cooperates iff its high 32 bits, read unsigned, are below
+ * round(c_X(s) 2^32), and Y iff the low 32 bits are below round(c_Y(s) 2^32). Probabilities are thus
+ * quantised to multiples of 2^-32 (error at most 2^-33; 0 and 1 exactly). Round 1 uses the folded first
+ * moves (1 - e) p0 + e (1 - p0). No allocation, boxing or virtual call per round.
+ */
+final class FusedMemoryOneKernel extends Kernel {
+    private final long[] thresholdX = new long[4];
+    private final long[] thresholdY = new long[4];
+    private final long firstX;
+    private final long firstY;
+    private int state;
+    private boolean fresh;
+
+    FusedMemoryOneKernel(Plan plan, Accumulator acc, MemoryStrategy x, MemoryStrategy y, Noise noise) {
+        super(plan, acc);
+        double ex = noise.executionX();
+        double ey = noise.executionY();
+        double hx = noise.perceptionX();
+        double hy = noise.perceptionY();
+        for (int s = 0; s < 4; s++) {
+            double qx = (1 - hx) * x.cooperation(s) + hx * x.cooperation(s ^ 1);
+            int m = State.mirror(s);
+            double qy = (1 - hy) * y.cooperation(m) + hy * y.cooperation(m ^ 1);
+            thresholdX[s] = threshold(execute(qx, ex));
+            thresholdY[s] = threshold(execute(qy, ey));
+        }
+        firstX = threshold(execute(x.initial(), ex));
+        firstY = threshold(execute(y.initial(), ey));
+    }
+
+    static double execute(double intended, double e) {
+        return (1 - e) * intended + e * (1 - intended);
+    }
+
+    static long threshold(double p) {
+        return Math.max(0, Math.min(1L << 32, Math.round(p * 0x1p32)));
+    }
+
+    @Override
+    void beginGame() {
+        fresh = true;
+    }
+
+    @Override
+    void play(long count, int mode, long offset) {
+        long s0 = rng.state0;
+        long s1 = rng.state1;
+        int s = state;
+        final long[] tx = thresholdX;
+        final long[] ty = thresholdY;
+        final long[] counts = acc.states;
+        final long[] steps = acc.steps;
+        final long[] time = acc.timeCounts;
+        long left = count;
+        long t = offset;
+        if (fresh) {
+            fresh = false;
+            long r = Long.rotateLeft(s0 + s1, 17) + s0;
+            s1 ^= s0;
+            s0 = Long.rotateLeft(s0, 49) ^ s1 ^ (s1 << 21);
+            s1 = Long.rotateLeft(s1, 28);
+            int ns = ((r >>> 32) < firstX ? 0 : 2) | ((r & 0xFFFFFFFFL) < firstY ? 0 : 1);
+            if ((mode & TALLY) != 0) {
+                counts[ns]++;
+            }
+            if ((mode & TIME) != 0) {
+                time[(int) (4 * t + ns)]++;
+            }
+            s = ns;
+            left--;
+            t++;
+        }
+        if (mode == (TALLY | STEP)) {
+            while (left > 0) {
+                int block = (int) Math.min(left, 1 << 30);
+                for (int i = 0; i < block; i++) {
+                    long r = Long.rotateLeft(s0 + s1, 17) + s0;
+                    s1 ^= s0;
+                    s0 = Long.rotateLeft(s0, 49) ^ s1 ^ (s1 << 21);
+                    s1 = Long.rotateLeft(s1, 28);
+                    int ns = ((r >>> 32) < tx[s] ? 0 : 2) | ((r & 0xFFFFFFFFL) < ty[s] ? 0 : 1);
+                    counts[ns]++;
+                    steps[(s << 2) | ns]++;
+                    s = ns;
+                }
+                left -= block;
+            }
+        } else {
+            for (; left > 0; left--, t++) {
+                long r = Long.rotateLeft(s0 + s1, 17) + s0;
+                s1 ^= s0;
+                s0 = Long.rotateLeft(s0, 49) ^ s1 ^ (s1 << 21);
+                s1 = Long.rotateLeft(s1, 28);
+                int ns = ((r >>> 32) < tx[s] ? 0 : 2) | ((r & 0xFFFFFFFFL) < ty[s] ? 0 : 1);
+                if ((mode & TALLY) != 0) {
+                    counts[ns]++;
+                }
+                if ((mode & STEP) != 0) {
+                    steps[(s << 2) | ns]++;
+                }
+                if ((mode & TIME) != 0) {
+                    time[(int) (4 * t + ns)]++;
+                }
+                s = ns;
+            }
+        }
+        state = s;
+        lastState = s;
+        rng.state0 = s0;
+        rng.state1 = s1;
+    }
+}
