@@ -15,7 +15,9 @@
 #
 # Only loopback addresses are used: the controller and the node are both 127.0.0.1.
 # Tunables (environment): REPRISE_SLURM_DIR, REPRISE_SLURM_CTLD_PORT (6817), REPRISE_SLURM_NODE_PORT
-# (6818), REPRISE_SLURM_START_TIMEOUT (60 s), REPRISE_SLURM_SELFTEST_TIMEOUT (120 s).
+# (6818), REPRISE_SLURM_START_TIMEOUT (60 s), REPRISE_SLURM_SELFTEST_TIMEOUT (120 s),
+# REPRISE_SLURM_DEBUG (daemon log level, default info), REPRISE_SLURM_PROBE (0 skips the probe job that
+# `start` runs to prove that jobs really run).
 #
 # Note: with process tracking misconfigured, srun and `sbatch --wait` exit 0 even though every step
 # fails, so the selftest never trusts exit codes alone; it checks job states and output files.
@@ -52,7 +54,7 @@ elapsed() { awk -v a="$1" -v b="$(now)" 'BEGIN { printf "%.2f", b - a }'; }
 
 log_file() {
   case $1 in
-    munged) echo "$LOG_DIR/munged.log" ;;
+    munged) echo "$LOG_DIR/munged.stderr" ;;   # in --foreground mode munged logs to stderr
     slurmctld) echo "$LOG_DIR/slurmctld.log" ;;
     slurmd) echo "$LOG_DIR/slurmd.log" ;;
   esac
@@ -60,14 +62,16 @@ log_file() {
 pid_file() { echo "$RUN_DIR/$1.pid"; }
 
 show_log_tails() {
+  # slurmctld/slurmd in -D mode write the same lines to their log file and to stderr; the .stderr file
+  # matters when they die before opening the log file.
   local d f
   for d in "${DAEMONS[@]}"; do
-    for f in "$(log_file "$d")" "$LOG_DIR/$d.stderr"; do
-      if [[ -s $f ]]; then
-        printf -- '----- last lines of %s -----\n' "$f" >&2
-        tail -n 25 "$f" >&2 || true
-      fi
-    done
+    f=$(log_file "$d")
+    [[ -s $f ]] || f=$LOG_DIR/$d.stderr
+    if [[ -s $f ]]; then
+      printf -- '----- last lines of %s -----\n' "$f" >&2
+      tail -n 25 "$f" >&2 || true
+    fi
   done
 }
 fail() { printf 'slurm-local: ERROR: %s\n' "$*" >&2; show_log_tails; exit 1; }
@@ -181,8 +185,8 @@ SlurmctldPidFile=$(pid_file slurmctld)
 SlurmdPidFile=$(pid_file slurmd)
 SlurmctldLogFile=$(log_file slurmctld)
 SlurmdLogFile=$(log_file slurmd)
-SlurmctldDebug=info
-SlurmdDebug=info
+SlurmctldDebug=${REPRISE_SLURM_DEBUG:-info}
+SlurmdDebug=${REPRISE_SLURM_DEBUG:-info}
 ProctrackType=proctrack/linuxproc
 TaskPlugin=task/none
 JobAcctGatherType=jobacct_gather/none
@@ -190,7 +194,7 @@ AccountingStorageType=accounting_storage/none
 JobCompType=jobcomp/none
 SelectType=select/cons_tres
 SelectTypeParameters=CR_CPU
-SchedulerType=sched/backfill
+SchedulerType=sched/builtin
 SchedulerParameters=batch_sched_delay=0
 MailProg=/bin/true
 ReturnToService=2
@@ -234,7 +238,6 @@ start_munged() {
     --key-file="$MUNGE_DIR/munge.key" \
     --socket="$MUNGE_SOCKET" \
     --pid-file="$(pid_file munged)" \
-    --log-file="$(log_file munged)" \
     --seed-file="$MUNGE_DIR/lib/munged.seed"
   local i
   for ((i = 0; i < 100; i++)); do
@@ -349,8 +352,33 @@ cmd_start() {
     fi
     sleep 0.1
   done
-  log "started in $(elapsed "$t0") s: munged $(running_pid munged), slurmctld $(running_pid slurmctld), slurmd $(running_pid slurmd); node $(cat "$STATE_DIR/nodename") idle; env file $ENV_FILE"
+  local t_idle
+  t_idle=$(elapsed "$t0")
+  [[ ${REPRISE_SLURM_PROBE:-1} == 0 ]] || probe_job "$deadline"
+  log "started in $(elapsed "$t0") s (node idle after $t_idle s${probe_note:-}): munged $(running_pid munged), slurmctld $(running_pid slurmctld), slurmd $(running_pid slurmd); node $(cat "$STATE_DIR/nodename") idle; env file $ENV_FILE"
   print_env_line
+}
+
+# Run one tiny batch job end to end and check its output file, so that `start` returns only when jobs
+# really run (exit codes alone can look fine while every step fails). Just after slurmctld starts, its
+# first scheduling pass comes about 3 s late; the probe absorbs that too.
+probe_job() {
+  local deadline=$1 t0 id st out=$RUN_DIR/probe.out
+  t0=$(now)
+  rm -f "$out"
+  id=$(sbatch --parsable --job-name=slurm-local-probe --output="$out" --chdir="$RUN_DIR" \
+    --wrap 'echo "probe ok on $SLURMD_NODENAME"' </dev/null 2>>"$LOG_DIR/probe.stderr") ||
+    fail "sbatch of the probe job failed: $(cat "$LOG_DIR/probe.stderr")"
+  id=${id%%;*}
+  while :; do
+    st=$(job_states "$id" | awk '{ print $2 }')
+    is_terminal "${st:-PENDING}" && break
+    (($(date +%s) <= deadline)) || fail "probe job $id not finished in time (state '${st:-unknown}')"
+    sleep 0.2
+  done
+  [[ $st == COMPLETED ]] || fail "probe job $id ended $st"
+  grep -q '^probe ok on ' "$out" 2>/dev/null || fail "probe job $id COMPLETED but wrote no correct output to $out"
+  probe_note=", probe job ran in $(elapsed "$t0") s"
 }
 
 # ------------------------------------------------------------------------------------------------- stop
@@ -462,13 +490,16 @@ mv "$OUT/merged.txt.tmp" "$OUT/merged.txt"
 EOF
   chmod 755 "$out/task.sh" "$out/merge.sh"
 
+  # OUT reaches the jobs through sbatch's own environment (default --export=ALL). Do not use
+  # --export=ALL,OUT=...: any --export list makes slurmd fetch root's login environment (su -) for each
+  # task, which costs about a second per task here.
   local array_id merge_id
   array_id=$(OUT=$out sbatch --parsable --array=0-3 --ntasks=1 --cpus-per-task=1 --job-name=selftest-array \
-    --chdir="$out" --output="$out/slurm-%A_%a.out" --export=ALL,OUT="$out" "$out/task.sh" </dev/null) ||
+    --chdir="$out" --output="$out/slurm-%A_%a.out" "$out/task.sh" </dev/null) ||
     fail "sbatch of the array failed"
   array_id=${array_id%%;*}
-  merge_id=$(sbatch --parsable --dependency=afterok:"$array_id" --ntasks=1 --job-name=selftest-merge \
-    --chdir="$out" --output="$out/slurm-%j.out" --export=ALL,OUT="$out" "$out/merge.sh" </dev/null) ||
+  merge_id=$(OUT=$out sbatch --parsable --dependency=afterok:"$array_id" --ntasks=1 --job-name=selftest-merge \
+    --chdir="$out" --output="$out/slurm-%j.out" "$out/merge.sh" </dev/null) ||
     fail "sbatch of the dependent job failed"
   merge_id=${merge_id%%;*}
 
