@@ -74,7 +74,18 @@ show_log_tails() {
     fi
   done
 }
-fail() { printf 'slurm-local: ERROR: %s\n' "$*" >&2; show_log_tails; exit 1; }
+STARTING=0
+fail() {
+  printf 'slurm-local: ERROR: %s\n' "$*" >&2
+  show_log_tails
+  if [[ $STARTING -eq 1 ]]; then
+    STARTING=0
+    log "start failed: stopping the daemons it had started"
+    cmd_stop || true
+  fi
+  printf 'slurm-local: ERROR: %s (daemon logs above, in %s)\n' "$*" "$LOG_DIR" >&2
+  exit 1
+}
 
 # True if PID is alive, runs program NAME, and its command line mentions our state dir
 # (so a recycled PID or somebody else's daemon is never mistaken for ours).
@@ -84,7 +95,7 @@ is_our_daemon() {
   [[ -r /proc/$pid/comm ]] || return 1
   comm=$(cat "/proc/$pid/comm" 2>/dev/null) || return 1
   [[ $comm == "$name" ]] || return 1
-  cmdline=$(tr '\0' ' ' <"/proc/$pid/cmdline" 2>/dev/null) || return 1
+  cmdline=$({ tr '\0' ' ' <"/proc/$pid/cmdline"; } 2>/dev/null) || return 1
   [[ $cmdline == *"$STATE_DIR/"* ]]
 }
 
@@ -324,6 +335,7 @@ cmd_start() {
     fi
   done
 
+  STARTING=1
   # Fresh start: forget jobs and logs from any earlier run.
   rm -rf "$STATE_DIR/ctld-state" "$STATE_DIR/slurmd-spool" "$LOG_DIR" "$RUN_DIR"
   mkdir -p "$LOG_DIR" "$RUN_DIR"
@@ -355,6 +367,7 @@ cmd_start() {
   local t_idle
   t_idle=$(elapsed "$t0")
   [[ ${REPRISE_SLURM_PROBE:-1} == 0 ]] || probe_job "$deadline"
+  STARTING=0
   log "started in $(elapsed "$t0") s (node idle after $t_idle s${probe_note:-}): munged $(running_pid munged), slurmctld $(running_pid slurmctld), slurmd $(running_pid slurmd); node $(cat "$STATE_DIR/nodename") idle; env file $ENV_FILE"
   print_env_line
 }
