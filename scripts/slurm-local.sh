@@ -206,6 +206,8 @@ JobCompType=jobcomp/none
 SelectType=select/cons_tres
 SelectTypeParameters=CR_CPU
 SchedulerType=sched/builtin
+# A job whose afterok dependency failed stays PENDING with reason DependencyNeverSatisfied (here
+# kill_invalid_depend did not cancel it within 75 s), so pollers must treat that reason as a failure.
 SchedulerParameters=batch_sched_delay=0
 MailProg=/bin/true
 ReturnToService=2
@@ -524,6 +526,11 @@ EOF
     pending=$(awk '{ print $2 }' <<<"$states" | while read -r s; do is_terminal "$s" || echo "$s"; done)
     # 4 array task records + 1 dependent job record, all terminal
     if [[ -z $pending && $(wc -l <<<"$states") -eq 5 ]]; then break; fi
+    if timeout 10 squeue -h -j "$merge_id" -o %r 2>/dev/null | grep -q DependencyNeverSatisfied; then
+      printf '%s\n' "$states" >&2
+      timeout 5 scancel "$merge_id" 2>/dev/null || true
+      fail "an array task failed, so the dependent job $merge_id can never start ($out)"
+    fi
     if (($(date +%s) > deadline)); then
       printf '%s\n' "$states" >&2
       timeout 5 scancel "$array_id" "$merge_id" 2>/dev/null || true
