@@ -108,7 +108,14 @@ public record ChainStructure(List<int[]> closedClasses, int[] periods, int[] tra
     }
 
     static ChainStructure analyze(MarkovChain chain) {
-        double[][] m = chain.matrix();
+        String[] labels = new String[chain.size()];
+        for (int i = 0; i < labels.length; i++) {
+            labels[i] = chain.stateLabel(i);
+        }
+        return analyze(chain.matrix(), chain.initialDistribution(), labels);
+    }
+
+    static ChainStructure analyze(double[][] m, double[] v, String[] labels) {
         int k = m.length;
         int[] comp = components(m);
         int count = 0;
@@ -138,7 +145,6 @@ public record ChainStructure(List<int[]> closedClasses, int[] periods, int[] tra
             }
         }
         int[] trans = transientList.stream().mapToInt(Integer::intValue).toArray();
-        double[] v = chain.initialDistribution();
         int nc = classes.size();
         double[][] pis = new double[nc][];
         int[] periods = new int[nc];
@@ -153,7 +159,7 @@ public record ChainStructure(List<int[]> closedClasses, int[] periods, int[] tra
             }
             pis[c] = Gth.stationary(sub);
             periods[c] = period(sub);
-            descriptions.add(describe(chain, cls, sub, periods[c]));
+            descriptions.add(describe(labels, cls, sub, periods[c]));
         }
         double[] absorption = absorption(m, v, classes, trans, comp, seen);
         double[] limit = new double[k];
@@ -306,24 +312,24 @@ public record ChainStructure(List<int[]> closedClasses, int[] periods, int[] tra
         return b == 0 ? a : gcd(b, a % b);
     }
 
-    private static String describe(MarkovChain chain, int[] cls, double[][] sub, int period) {
+    private static String describe(String[] labels, int[] cls, double[][] sub, int period) {
         int k = cls.length;
         if (k > 1 && period == k) {
-            StringBuilder sb = new StringBuilder(chain.stateLabel(cls[0]));
+            StringBuilder sb = new StringBuilder(labels[cls[0]]);
             int u = 0;
             for (int step = 1; step < k; step++) {
                 int w = 0;
                 while (!(sub[u][w] > 0)) {
                     w++;
                 }
-                sb.append(" -> ").append(chain.stateLabel(cls[w]));
+                sb.append(" -> ").append(labels[cls[w]]);
                 u = w;
             }
             return sb.toString();
         }
         StringBuilder sb = new StringBuilder("{");
         for (int a = 0; a < k; a++) {
-            sb.append(a == 0 ? "" : ", ").append(chain.stateLabel(cls[a]));
+            sb.append(a == 0 ? "" : ", ").append(labels[cls[a]]);
         }
         return sb.append('}').toString();
     }
