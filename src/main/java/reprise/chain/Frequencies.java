@@ -108,7 +108,7 @@ public final class Frequencies {
                 return acc;
             }
             sf = Dense.add(sf, Dense.multiply(p, sf));
-            p = Dense.multiply(p, p);
+            p = Dense.squareStochastic(p);
         }
     }
 

@@ -28,8 +28,8 @@ import reprise.game.State;
  *
  * <p>Implementation note. See {@code ChainBuilder}: probabilities are built without subtractive
  * cancellation, so each entry has relative error of a few units of 2^-53; rows sum to 1 within
- * about 1e-16. Powers use repeated squaring of non-negative matrices (relative error about
- * log2(t) * k * 2^-53).
+ * about 1e-16. Powers use repeated squaring of non-negative matrices, each square rescaled to unit row
+ * sums (relative error about log2(t) * k * 2^-53).
  *
  * <p>References:
  * Kemeny, J.G. &amp; Snell, J.L. (1960). Finite Markov Chains. Van Nostrand.

@@ -107,7 +107,7 @@ public final class Spectrum {
         powers[0] = m;
         int top = -1;
         for (int j = 1; j <= levels; j++) {
-            powers[j] = Dense.multiply(powers[j - 1], powers[j - 1]);
+            powers[j] = Dense.squareStochastic(powers[j - 1]);
             if (distance(powers[j], pi) <= 0.25) {
                 top = j;
                 break;
