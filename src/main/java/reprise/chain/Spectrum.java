@@ -3,6 +3,7 @@ package reprise.chain;
 import java.util.Arrays;
 import java.util.OptionalLong;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.exception.MaxCountExceededException;
 import org.apache.commons.math3.linear.EigenDecomposition;
 
 /**
@@ -20,7 +21,8 @@ import org.apache.commons.math3.linear.EigenDecomposition;
  * <p>Implementation note. Eigenvalues from Commons Math's EigenDecomposition (Hessenberg reduction and
  * the real Schur form; works for non-symmetric matrices), accurate to about 1e-15 times the matrix norm
  * for well separated eigenvalues; for defective eigenvalues (noise-free deterministic play) the modulus
- * may be off by the square root of that. The mixing time uses repeated squaring to bracket t by powers of
+ * may be off by the square root of that. On large sparse record chains the QR iteration can fail to
+ * converge; the lazy chain (1 - s) M + s I, whose eigenvalues are (1 - s) lambda + s, is then tried. The mixing time uses repeated squaring to bracket t by powers of
  * two and then a binary descent on the stored powers, O(k^3 log t); d(t) is non-increasing in t, which
  * makes the descent valid.
  *
@@ -33,6 +35,9 @@ public final class Spectrum {
     /** Mixing times above this are reported as empty: 2^40 rounds. */
     public static final long MIXING_CAP = 1L << 40;
 
+    /** Shifts s of the lazy chain (1 - s) M + s I tried in turn when the QR iteration does not converge. */
+    private static final double[] SHIFTS = {0, 0.5, 0.75};
+
     private Spectrum() {
     }
 
@@ -40,16 +45,39 @@ public final class Spectrum {
      * The second-largest eigenvalue modulus of a stochastic matrix.
      *
      * @param m the matrix (k x k)
-     * @return |lambda_2| in [0, 1]; 0 for a 1 x 1 matrix
+     * @return |lambda_2| in [0, 1]; 0 for a 1 x 1 matrix; NaN if the eigenvalue iteration fails to converge
+     *     even on the lazy chains (1 - s) M + s I (same eigenvectors, eigenvalues (1 - s) lambda + s)
      */
     public static double secondEigenvalueModulus(double[][] m) {
         int k = m.length;
         if (k == 1) {
             return 0;
         }
-        EigenDecomposition e = new EigenDecomposition(new Array2DRowRealMatrix(m, false));
-        double[] re = e.getRealEigenvalues();
-        double[] im = e.getImagEigenvalues();
+        double[] re = null;
+        double[] im = null;
+        for (double shift : SHIFTS) {
+            double[][] a = new double[k][k];
+            for (int i = 0; i < k; i++) {
+                for (int j = 0; j < k; j++) {
+                    a[i][j] = (1 - shift) * m[i][j] + (i == j ? shift : 0);
+                }
+            }
+            try {
+                EigenDecomposition e = new EigenDecomposition(new Array2DRowRealMatrix(a, false));
+                re = e.getRealEigenvalues();
+                im = e.getImagEigenvalues();
+                for (int i = 0; i < k; i++) {
+                    re[i] = (re[i] - shift) / (1 - shift);
+                    im[i] = im[i] / (1 - shift);
+                }
+                break;
+            } catch (MaxCountExceededException ex) {
+                re = null;
+            }
+        }
+        if (re == null) {
+            return Double.NaN;
+        }
         int closest = 0;
         double best = Double.POSITIVE_INFINITY;
         for (int i = 0; i < k; i++) {
