@@ -46,6 +46,15 @@ class AcceptanceTest {
             Prediction pr = Prediction.of(match, null);
             Support.assertVector(pi, pr.stationary(), 1e-9, where + " pi");
             assertEquals(dot(pi, Support.PD.payoffX()), pr.stationaryPayoffs().x(), 1e-9, where);
+            // Press & Dyson (2012) determinant formula with the noise folded into the vectors (ClosedForms)
+            Payoffs det = ClosedForms.pressDyson(Support.PD, p, q, noise);
+            assertEquals(pr.stationaryPayoffs().x(), det.x(), 1e-9, where + " determinant");
+            assertEquals(pr.stationaryPayoffs().y(), det.y(), 1e-9, where + " determinant");
+            // Nowak & Sigmund (1990) on the reactive parts (p_CC, p_CD) and (q_CC, q_CD), with the same noise
+            Match reactive = Support.match(MemoryStrategy.reactive("x", p[0], p[1], px0),
+                MemoryStrategy.reactive("y", q[0], q[1], qy0), noise);
+            assertEquals(ClosedForms.reactive(Support.PD, p[0], p[1], q[0], q[1], noise).payoffs().x(),
+                Prediction.of(reactive, null).stationaryPayoffs().x(), 1e-9, where + " reactive");
             int n = 1 + rng.nextInt(300);
             double[] fn = new double[4];
             double[] vt = v1.clone();
