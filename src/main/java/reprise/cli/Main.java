@@ -17,7 +17,7 @@ import picocli.CommandLine.IVersionProvider;
     versionProvider = Main.Version.class,
     description = {"Checks exact Markov-chain results for repeated 2x2 games against finite, noisy simulations.",
         "Data goes to stdout, messages to stderr."},
-    subcommands = {CommandLine.HelpCommand.class},
+    subcommands = {SolveCommand.class, SimulateCommand.class, CommandLine.HelpCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {"0:ok, every comparison agrees", "1:a comparison disagrees",
         "2:bad input or usage", "3:internal error"})
@@ -82,7 +82,8 @@ public final class Main implements Runnable {
         });
         cl.setParameterExceptionHandler((ex, args) -> {
             CommandLine c = ex.getCommandLine();
-            c.getErr().println("reprise " + c.getCommandName() + ": " + ex.getMessage());
+            c.getErr().println((c.getParent() == null ? "reprise" : "reprise " + c.getCommandName()) + ": "
+                + ex.getMessage());
             c.getErr().println("(see 'reprise " + (c.getParent() == null ? "" : c.getCommandName() + " ") + "--help')");
             return BAD_INPUT;
         });

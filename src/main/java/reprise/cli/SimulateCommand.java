@@ -1,0 +1,180 @@
+package reprise.cli;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.PrintWriter;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+import reprise.game.Horizon;
+import reprise.game.Match;
+import reprise.game.State;
+import reprise.sim.Enactment;
+import reprise.sim.SimulationResult;
+import reprise.sim.SimulationSpec;
+import reprise.sim.Simulator;
+
+/** {@code simulate}: plays independent games round by round and prints the exact integer tallies. */
+@Command(name = "simulate", mixinStandardHelpOptions = true,
+    description = {"Plays independent games round by round, with execution and perception errors as separate "
+        + "events, and prints the tallies: state counts, transition counts, payoff totals, game lengths.",
+        "The same seed gives the same numbers for any --threads."})
+final class SimulateCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Mixin
+    MatchOptions options;
+
+    @Option(names = "--replicates", paramLabel = "G", defaultValue = "1000",
+        description = "Number of independent games. Default: ${DEFAULT-VALUE}.")
+    long replicates;
+
+    @Option(names = "--seed", paramLabel = "S", defaultValue = "1",
+        description = "Master seed; game i's random stream depends only on (S, i). Default: ${DEFAULT-VALUE}.")
+    long seed;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads. Default: all cores.")
+    Integer threads;
+
+    @Option(names = "--burn-in", paramLabel = "B", defaultValue = "0",
+        description = "Rounds at the start of each game left out of the tallies. Default: ${DEFAULT-VALUE}.")
+    long burnIn;
+
+    @Option(names = "--snapshots", paramLabel = "t1,t2,...", split = ",",
+        description = "Count the state at these rounds across games.")
+    long[] snapshots;
+
+    @Option(names = "--literal", description = "Always enact every event with its own draw (slower; the fast "
+        + "path for memory-one players is equal in distribution).")
+    boolean literal;
+
+    @Option(names = "--json", description = "Print one JSON object (documented in README).")
+    boolean json;
+
+    @Option(names = "--quiet", description = "No progress line on stderr.")
+    boolean quiet;
+
+    @Override
+    public Integer call() {
+        Match match = options.match();
+        Horizon horizon = options.horizonOrNull();
+        if (horizon == null) {
+            throw new IllegalArgumentException("simulate needs --rounds N or --continuation DELTA");
+        }
+        if (replicates < 1) {
+            throw new IllegalArgumentException("--replicates must be at least 1: " + replicates);
+        }
+        if (threads != null && threads < 1) {
+            throw new IllegalArgumentException("--threads must be at least 1: " + threads);
+        }
+        if (burnIn < 0) {
+            throw new IllegalArgumentException("--burn-in must be at least 0: " + burnIn);
+        }
+        SimulationSpec s = SimulationSpec.of(match, horizon, replicates, seed).withBurnIn(burnIn)
+            .withEnactment(literal ? Enactment.LITERAL : Enactment.FASTEST);
+        if (threads != null) {
+            s = s.withThreads(threads);
+        }
+        if (snapshots != null) {
+            s = s.withSnapshots(snapshots);
+        }
+        PrintWriter err = spec.commandLine().getErr();
+        ProgressLine progress = new ProgressLine(err, !quiet, "simulate: ");
+        long t0 = System.nanoTime();
+        SimulationResult r = new Simulator(s).run(progress);
+        progress.finish();
+        double seconds = (System.nanoTime() - t0) / 1e9;
+        PrintWriter out = spec.commandLine().getOut();
+        if (json) {
+            out.println(Json.write(json(r, match, horizon, s.threads())));
+        } else {
+            table(out, r, match, horizon, s.threads(), seconds);
+        }
+        if (!quiet) {
+            err.println(String.format(Locale.ROOT, "simulate: %d rounds in %.2f s (%.3g rounds/s) on %d threads",
+                r.roundsTotal(), seconds, r.roundsTotal() / Math.max(seconds, 1e-9), s.threads()));
+        }
+        return Main.OK;
+    }
+
+    static ObjectNode json(SimulationResult r, Match match, Horizon horizon, int threads) {
+        ObjectNode o = Json.object();
+        o.set("states", Json.strings("CC", "CD", "DC", "DD"));
+        o.put("x", match.x().label());
+        o.put("y", match.y().label());
+        o.put("game", match.game().label());
+        o.set("horizon", SolveCommand.horizonNode(horizon));
+        o.put("replicates", r.replicates());
+        o.put("rounds_total", r.roundsTotal());
+        o.set("state_counts", Json.array(r.stateCounts()));
+        o.set("transition_counts", Json.matrix(r.transitionCounts()));
+        ObjectNode pay = Json.object();
+        Json.put(pay, "x", r.payoffTotalX());
+        Json.put(pay, "y", r.payoffTotalY());
+        o.set("payoff_totals", pay);
+        ObjectNode len = Json.object();
+        len.put("sum", r.lengthSum());
+        len.put("min", r.lengthMin());
+        len.put("max", r.lengthMax());
+        len.put("sum_of_squares", r.lengthSumOfSquares());
+        o.set("game_lengths", len);
+        o.put("seed", r.seed());
+        o.put("generator", r.generator());
+        o.put("fast_path", r.fastPath());
+        o.put("threads", threads);
+        if (r.snapshotRounds().length > 0) {
+            ArrayNode snaps = o.putArray("snapshots");
+            long[][] c = r.snapshotCounts();
+            for (int i = 0; i < r.snapshotRounds().length; i++) {
+                ObjectNode sn = Json.object();
+                sn.put("round", r.snapshotRounds()[i]);
+                sn.put("games", r.snapshotReached()[i]);
+                sn.set("counts", Json.array(c[i]));
+                snaps.add(sn);
+            }
+        }
+        return o;
+    }
+
+    private static void table(PrintWriter out, SimulationResult r, Match match, Horizon horizon, int threads,
+        double seconds) {
+        out.printf(Locale.ROOT, "X: %s   Y: %s   game: %s   %s%n", match.x().label(), match.y().label(),
+            match.game().label(), horizon.describe());
+        out.printf(Locale.ROOT, "%d games, %d tallied rounds, seed %d, %s%s%n", r.replicates(), r.roundsTotal(),
+            r.seed(), r.generator(), r.fastPath() ? ", fused memory-one path" : ", literal path");
+        out.println();
+        out.println("state   rounds          share");
+        long[] c = r.stateCounts();
+        for (int s = 0; s < 4; s++) {
+            out.printf(Locale.ROOT, "%-6s  %-14d  %.6f%n", State.of(s), c[s],
+                r.roundsTotal() == 0 ? Double.NaN : (double) c[s] / r.roundsTotal());
+        }
+        out.println();
+        out.println("transitions (row: round t-1, column: round t)");
+        out.println("        CC            CD            DC            DD");
+        long[][] t = r.transitionCounts();
+        for (int s = 0; s < 4; s++) {
+            out.printf(Locale.ROOT, "%-6s%-14d%-14d%-14d%-14d%n", State.of(s), t[s][0], t[s][1], t[s][2], t[s][3]);
+        }
+        out.println();
+        out.printf(Locale.ROOT, "payoff per round: X %.6f   Y %.6f%n", r.meanPayoffX(), r.meanPayoffY());
+        out.printf(Locale.ROOT, "game length: mean %.4f, min %d, max %d%n", (double) r.lengthSum() / r.replicates(),
+            r.lengthMin(), r.lengthMax());
+        long[] rounds = r.snapshotRounds();
+        if (rounds.length > 0) {
+            out.println();
+            out.println("round   games      CC        CD        DC        DD");
+            long[][] sc = r.snapshotCounts();
+            for (int i = 0; i < rounds.length; i++) {
+                out.printf(Locale.ROOT, "%-8d%-11d%-10d%-10d%-10d%-10d%n", rounds[i], r.snapshotReached()[i], sc[i][0],
+                    sc[i][1], sc[i][2], sc[i][3]);
+            }
+        }
+    }
+}

@@ -1,0 +1,172 @@
+package reprise.cli;
+
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.PrintWriter;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+import reprise.chain.CooperationRates;
+import reprise.chain.Payoffs;
+import reprise.chain.Prediction;
+import reprise.game.Horizon;
+import reprise.game.Match;
+
+/** {@code solve}: the exact Markov-chain predictions for one match. */
+@Command(name = "solve", mixinStandardHelpOptions = true,
+    description = {"Computes the exact predictions of the Markov chain of a match: stationary distribution "
+        + "(or, for non-ergodic play, the closed classes and the time-average limit), payoffs, cooperation "
+        + "rates, the expected frequencies over a fixed or random game length, mixing, and the asymptotic "
+        + "covariance of the state frequencies."})
+final class SolveCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Mixin
+    MatchOptions options;
+
+    @Option(names = "--json", description = "Print one JSON object (documented in README).")
+    boolean json;
+
+    @Override
+    public Integer call() {
+        Match match = options.match();
+        Horizon horizon = options.horizonOrNull();
+        Prediction p = Prediction.of(match, horizon);
+        PrintWriter out = spec.commandLine().getOut();
+        if (json) {
+            out.println(Json.write(json(p, match, horizon)));
+        } else {
+            table(out, p, match);
+        }
+        return Main.OK;
+    }
+
+    static ObjectNode horizonNode(Horizon h) {
+        ObjectNode o = Json.object();
+        if (h instanceof Horizon.Rounds r) {
+            o.put("kind", "rounds");
+            o.put("value", r.count());
+        } else {
+            o.put("kind", "continuation");
+            o.put("value", ((Horizon.Continuation) h).probability());
+        }
+        return o;
+    }
+
+    static ObjectNode json(Prediction p, Match match, Horizon horizon) {
+        ObjectNode o = Json.object();
+        o.set("states", Json.strings(p.states().toArray(String[]::new)));
+        o.put("x", match.x().label());
+        o.put("y", match.y().label());
+        o.put("game", match.game().label());
+        o.put("chain_states", p.chainSize());
+        if (p.stationary() != null) {
+            o.set("stationary", Json.array(p.stationary()));
+            o.putNull("stationary_note");
+            o.set("stationary_payoffs", payoffs(p.stationaryPayoffs()));
+            o.set("stationary_cooperation", cooperation(p.stationaryCooperation()));
+        } else {
+            o.putNull("stationary");
+            o.put("stationary_note", p.stationaryNote());
+            o.putNull("stationary_payoffs");
+            o.putNull("stationary_cooperation");
+        }
+        o.set("limit_frequencies", Json.array(p.limitFrequencies()));
+        o.set("limit_payoffs", payoffs(p.limitPayoffs()));
+        o.set("closed_classes", Json.strings(p.closedClasses().toArray(String[]::new)));
+        if (p.horizon() != null) {
+            ObjectNode h = horizonNode(horizon);
+            h.set("frequencies", Json.array(p.horizon().frequencies()));
+            h.set("payoffs", payoffs(p.horizon().payoffs()));
+            h.set("cooperation", cooperation(p.horizon().cooperation()));
+            o.set("horizon", h);
+        } else {
+            o.putNull("horizon");
+        }
+        Json.put(o, "second_eigenvalue_modulus", p.secondEigenvalueModulus());
+        if (p.mixingTime().isPresent()) {
+            o.put("mixing_time", p.mixingTime().getAsLong());
+        } else {
+            o.putNull("mixing_time");
+        }
+        o.set("asymptotic_covariance", p.asymptoticCovariance() == null ? null : Json.matrix(p.asymptoticCovariance()));
+        o.set("payoff_asymptotic_covariance", p.payoffCovariance() == null ? null : Json.matrix(p.payoffCovariance()));
+        return o;
+    }
+
+    private static ObjectNode payoffs(Payoffs p) {
+        ObjectNode o = Json.object();
+        Json.put(o, "x", p.x());
+        Json.put(o, "y", p.y());
+        return o;
+    }
+
+    private static ObjectNode cooperation(CooperationRates c) {
+        ObjectNode o = Json.object();
+        Json.put(o, "x", c.x());
+        Json.put(o, "y", c.y());
+        return o;
+    }
+
+    private static void table(PrintWriter out, Prediction p, Match match) {
+        out.printf(Locale.ROOT, "X: %s   Y: %s   game: %s%n", match.x().label(), match.y().label(), match.game().label());
+        out.printf(Locale.ROOT, "noise: execution %s/%s, perception %s/%s; exact chain on %d states%n",
+            fmt(match.noise().executionX()), fmt(match.noise().executionY()), fmt(match.noise().perceptionX()),
+            fmt(match.noise().perceptionY()), p.chainSize());
+        out.println();
+        double[] st = p.stationary();
+        double[] lim = p.limitFrequencies();
+        Prediction.HorizonResult h = p.horizon();
+        StringBuilder head = new StringBuilder(String.format(Locale.ROOT, "%-16s%-14s", "", st != null ? "stationary"
+            : "limit"));
+        if (h != null) {
+            head.append(h.kind().equals("rounds") ? String.format(Locale.ROOT, "%d rounds", (long) h.value())
+                : "continuation " + fmt(h.value()));
+        }
+        out.println(head.toString().stripTrailing());
+        double[] longRun = st != null ? st : lim;
+        double[] hf = h == null ? null : h.frequencies();
+        for (int s = 0; s < 4; s++) {
+            row(out, p.states().get(s), longRun[s], hf == null ? Double.NaN : hf[s]);
+        }
+        Payoffs lp = st != null ? p.stationaryPayoffs() : p.limitPayoffs();
+        CooperationRates lc = CooperationRates.of(longRun);
+        row(out, "cooperation X", lc.x(), h == null ? Double.NaN : h.cooperation().x());
+        row(out, "cooperation Y", lc.y(), h == null ? Double.NaN : h.cooperation().y());
+        row(out, "payoff X", lp.x(), h == null ? Double.NaN : h.payoffs().x());
+        row(out, "payoff Y", lp.y(), h == null ? Double.NaN : h.payoffs().y());
+        out.println();
+        if (st == null) {
+            out.println("not ergodic: " + p.stationaryNote());
+            out.println("the 'limit' column is the time average from the actual first round");
+        }
+        out.printf(Locale.ROOT, "second eigenvalue modulus %.6g; mixing time %s%n", p.secondEigenvalueModulus(),
+            p.mixingTime().isPresent() ? p.mixingTime().getAsLong() + " rounds (total variation <= 1/4)"
+                : "not defined (no unique stationary distribution)");
+        if (p.asymptoticCovariance() != null) {
+            out.println("asymptotic covariance of state frequencies (x n):");
+            double[][] c = p.asymptoticCovariance();
+            for (int s = 0; s < 4; s++) {
+                out.printf(Locale.ROOT, "  %-4s %12.6g %12.6g %12.6g %12.6g%n", p.states().get(s), c[s][0], c[s][1],
+                    c[s][2], c[s][3]);
+            }
+        }
+    }
+
+    private static void row(PrintWriter out, String label, double a, double b) {
+        out.printf(Locale.ROOT, "%-16s%-14s%s%n", label, fmt(a), Double.isNaN(b) ? "" : fmt(b));
+    }
+
+    static String fmt(double v) {
+        if (Double.isNaN(v)) {
+            return "-";
+        }
+        return String.format(Locale.ROOT, "%.10g", v).replaceFirst("(\\.\\d*?)0+(e|$)", "$1$2").replaceFirst("\\.(e|$)",
+            "$1");
+    }
+}
