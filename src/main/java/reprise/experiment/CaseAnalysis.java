@@ -1,0 +1,214 @@
+package reprise.experiment;
+
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.commons.statistics.distribution.NormalDistribution;
+import reprise.chain.CountMoments;
+import reprise.chain.Frequencies;
+import reprise.chain.MarkovChain;
+import reprise.chain.NoPredictionException;
+import reprise.chain.Prediction;
+import reprise.game.Horizon;
+import reprise.game.Match;
+import reprise.sim.SimulationResult;
+import reprise.stats.Estimate;
+import reprise.stats.GameSummary;
+import reprise.stats.ReplicateInference;
+import reprise.stats.SnapshotTest;
+import reprise.stats.TestResult;
+import reprise.stats.TransitionTest;
+import reprise.stats.WaldTest;
+
+/**
+ * Joins the exact engine, the simulator's tallies and the statistics for one case: the exact quantities
+ * for the tallied window of the horizon, and every test of the simulation against them.
+ *
+ * <p>Each game is one independent observation. For a quantity w . N / L the estimate is the ratio
+ * sum w . N / sum L (for fixed lengths, the mean of per-game averages); under the exact model its
+ * standard error is sqrt((w - r0)' Sigma (w - r0) / G) / E[L], with Sigma the exact covariance of one
+ * game's counts and r0 the exact value (delta method; exact for fixed lengths).
+ */
+public final class CaseAnalysis {
+
+    private static final NormalDistribution NORMAL = NormalDistribution.of(0, 1);
+
+    private CaseAnalysis() {
+    }
+
+    /**
+     * The exact side of a case.
+     *
+     * @param chain the chain
+     * @param prediction long-run and horizon predictions
+     * @param moments the exact mean and covariance of one game's tallied counts
+     * @param frequencies the exact expected frequencies over the tallied rounds, E[N]/E[L]
+     * @param transitions the observable transition matrix, or null with {@code transitionsNote}
+     * @param transitionsNote why there is no transition test, or null
+     */
+    public record Exact(MarkovChain chain, Prediction prediction, CountMoments moments, double[] frequencies,
+        double[][] transitions, String transitionsNote) {
+
+        /** @return the expected tallied length of one game */
+        public double meanLength() {
+            return moments.lengthMean();
+        }
+
+        /**
+         * The exact value of a quantity.
+         *
+         * @param w the weights
+         * @return w . E[N] / E[L]
+         */
+        public double value(double[] w) {
+            return Quantities.dot(w, frequencies);
+        }
+
+        /**
+         * The exact standard error of the estimate of w . N / L from G games, under this model.
+         *
+         * @param w the weights
+         * @param games G
+         * @return the standard error
+         */
+        public double standardError(double[] w, long games) {
+            double r0 = value(w);
+            double[] a = new double[4];
+            for (int s = 0; s < 4; s++) {
+                a[s] = w[s] - r0;
+            }
+            double v = Math.max(0, moments.quadraticForm(a));
+            return Math.sqrt(v / games) / meanLength();
+        }
+    }
+
+    /**
+     * Computes the exact side.
+     *
+     * @param match the match the exact engine assumes
+     * @param horizon the horizon it assumes
+     * @param burnIn rounds left out at the start
+     * @return the exact quantities
+     * @throws NoPredictionException when the match has no exact chain
+     */
+    public static Exact exact(Match match, Horizon horizon, long burnIn) {
+        MarkovChain chain = MarkovChain.of(match);
+        Prediction prediction = Prediction.of(match, horizon);
+        CountMoments moments;
+        double[] f;
+        if (horizon instanceof Horizon.Rounds r) {
+            moments = CountMoments.rounds(chain, burnIn + 1, r.count());
+            f = Frequencies.rounds(chain, burnIn + 1, r.count());
+        } else {
+            double delta = ((Horizon.Continuation) horizon).probability();
+            moments = CountMoments.continuation(chain, delta, burnIn);
+            f = Frequencies.continuation(chain, delta, burnIn);
+        }
+        double[][] transitions = null;
+        String note = null;
+        try {
+            transitions = chain.observableTransitionMatrix();
+        } catch (NoPredictionException e) {
+            note = e.getMessage();
+        }
+        return new Exact(chain, prediction, moments, f, transitions, note);
+    }
+
+    /**
+     * The simulator's per-game sufficient statistics in the form the statistics expect.
+     *
+     * @param r the simulation result
+     * @return the summary over all games (games with no tallied round count as zeros)
+     */
+    public static GameSummary summary(SimulationResult r) {
+        BigInteger[][] products = r.sumOfStateCountProducts();
+        long[][] p = new long[4][4];
+        BigInteger[] lengthCounts = r.sumOfLengthTimesStateCounts();
+        long[] lc = new long[4];
+        try {
+            for (int i = 0; i < 4; i++) {
+                for (int j = 0; j < 4; j++) {
+                    p[i][j] = products[i][j].longValueExact();
+                }
+                lc[i] = lengthCounts[i].longValueExact();
+            }
+            return new GameSummary(r.replicates(), r.stateCounts(), p, lc, r.sumOfTalliedLengths(),
+                r.sumOfSquaredTalliedLengths().longValueExact());
+        } catch (ArithmeticException e) {
+            throw new IllegalArgumentException("the per-game sums of squares exceed 9.2e18 (games too long or too "
+                + "many for one case); split the case into fewer replicates or shorter games", e);
+        }
+    }
+
+    /**
+     * A named test result.
+     *
+     * @param name the test's name, e.g. "frequencies (Wald)"
+     * @param result the result
+     */
+    public record Named(String name, TestResult result) {
+    }
+
+    /**
+     * The z-test of one quantity against the exact value, with the exact standard error.
+     *
+     * @param exact the exact side
+     * @param estimate the simulated estimate
+     * @param w the quantity's weights
+     * @return statistic z, df NaN (normal reference), two-sided p
+     */
+    public static TestResult zTest(Exact exact, Estimate estimate, double[] w) {
+        double predicted = exact.value(w);
+        double se = exact.standardError(w, estimate.replicates());
+        double d = estimate.value() - predicted;
+        if (!(se > 0)) {
+            boolean same = Math.abs(d) <= 1e-12 * Math.max(1, Math.abs(predicted));
+            return new TestResult(same ? 0 : Double.POSITIVE_INFINITY, Double.NaN, same ? 1 : 0,
+                same ? "no variance under the model, and none observed" : "the model allows no variation here, "
+                    + "but the simulation differs");
+        }
+        double z = d / se;
+        return new TestResult(z, Double.NaN, Math.min(1, 2 * NORMAL.survivalProbability(Math.abs(z))), "");
+    }
+
+    /**
+     * Every test of a simulation against the exact side that applies.
+     *
+     * @param exact the exact side
+     * @param r the simulation
+     * @param weightsByName quantities to test individually, by name (may be empty)
+     * @return the named results: "frequencies (Wald)", "transitions (Pearson)", "transitions (LR)",
+     *     "snapshot t=...", "z NAME" for each quantity
+     */
+    public static List<Named> tests(Exact exact, SimulationResult r, java.util.Map<String, double[]> weightsByName) {
+        List<Named> out = new ArrayList<>();
+        GameSummary summary = summary(r);
+        double[] mu = exact.moments().mean();
+        double[][] sigma = exact.moments().covariance();
+        boolean fixed = summary.fixedLength();
+        out.add(new Named("frequencies (Wald)", fixed ? WaldTest.withDefaults().testMeanCounts(summary, mu, sigma)
+            : WaldTest.withDefaults().testRatio(summary, mu, sigma)));
+        if (exact.transitions() != null) {
+            long[][] counts = exact.chain().size() == 4 ? r.transitionCounts() : r.historyTransitionCounts();
+            if (counts != null && counts.length == exact.transitions().length) {
+                out.add(new Named("transitions (Pearson)", TransitionTest.withDefaults().test(counts,
+                    exact.transitions())));
+                out.add(new Named("transitions (LR)", TransitionTest.withDefaults()
+                    .with(TransitionTest.Form.LIKELIHOOD_RATIO).test(counts, exact.transitions())));
+            }
+        }
+        long[] rounds = r.snapshotRounds();
+        long[][] snaps = r.snapshotCounts();
+        for (int i = 0; i < rounds.length; i++) {
+            if (r.snapshotReached()[i] > 0) {
+                out.add(new Named("snapshot t=" + rounds[i], SnapshotTest.withDefaults().test(snaps[i],
+                    exact.chain().roundStateDistributionAt(rounds[i]))));
+            }
+        }
+        for (java.util.Map.Entry<String, double[]> q : weightsByName.entrySet()) {
+            Estimate est = ReplicateInference.mean(summary, q.getValue());
+            out.add(new Named("z " + q.getKey(), zTest(exact, est, q.getValue())));
+        }
+        return out;
+    }
+}
