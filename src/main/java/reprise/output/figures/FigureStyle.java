@@ -60,5 +60,6 @@ record FigureStyle(int width, int height, int dpi) {
         s.setToolTipsEnabled(false);
         s.setLocale(java.util.Locale.ROOT);
         s.setLegendPosition(Styler.LegendPosition.OutsideE);
+        s.setYAxisLabelAlignment(AxesChartStyler.TextAlignment.Right);
     }
 }

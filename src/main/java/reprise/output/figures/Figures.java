@@ -322,8 +322,14 @@ public final class Figures {
                 px[2 * k - 1 - i] = px[i];
                 py[2 * k - 1 - i] = band[0][i];
             }
-            String label = sizes.length == 1 ? "pointwise 95% band" : "pointwise 95% band, K = " + k;
-            plot.polygon(label, px, py, Palette.withAlpha(Palette.BAND_GREY, sizes.length == 1 ? 255 : 140));
+            plot.polygon(null, px, py, Palette.withAlpha(Palette.BAND_GREY, sizes.length == 1 ? 255 : 140));
+        }
+        if (!sorted.isEmpty()) {
+            // a thick grey legend key stands for the band (a box entry would make XChart misjudge the
+            // legend width for the line entries)
+            plot.key(sizes.length == 1 ? "pointwise 95% band" : "pointwise 95% bands (K = "
+                + Arrays.toString(sizes).replaceAll("[\\[\\]]", "") + ")", Palette.BAND_GREY,
+                new java.awt.BasicStroke(11f), 0.5, 0.5);
         }
         if (!sorted.isEmpty()) {
             plot.curve("uniform (y = x)", "diagonal", new double[] {0, 1}, new double[] {0, 1}, Palette.BLACK,
@@ -345,8 +351,6 @@ public final class Figures {
             s.setMarker(k <= 60 ? Plot.MARKERS[j % Plot.MARKERS.length] : org.knowm.xchart.style.markers.SeriesMarkers.NONE);
             j++;
         }
-        XYChart chart = plot.chart();
-        chart.getStyler().setXAxisMin(0.0).setXAxisMax(1.0).setYAxisMin(0.0).setYAxisMax(1.0);
         return finish(plot, directory, baseName, !sorted.isEmpty());
     }
 
@@ -406,6 +410,8 @@ public final class Figures {
             data.axes().yLabels(), cells);
         series.setMin(scale[0]);
         series.setMax(scale[1]);
+        s.setMin(scale[0]);
+        s.setMax(scale[1]);
         return new FigureResult(FigureFiles.write(chart, directory, baseName, formats, style.dpi()), notes);
     }
 
@@ -459,18 +465,21 @@ public final class Figures {
         HeatMapSeries series = chart.addSeries("verdicts", data.axes().xLabels(), data.axes().yLabels(), cells);
         series.setMin(-0.5);
         series.setMax(k - 0.5);
+        s.setMin(-0.5);
+        s.setMax(k - 0.5);
         return new FigureResult(FigureFiles.write(chart, directory, baseName, formats, style.dpi()), notes);
     }
 
     private HeatMapChart heatmap(String title, GridAxes axes) {
-        HeatMapChart chart = new HeatMapChart(style.width(), style.height());
+        // the plain (width, height) constructor leaves the heatmap styler uninitialised in XChart 3.8.8
+        HeatMapChart chart = new HeatMapChart(style.width(), style.height(), Styler.ChartTheme.XChart);
         chart.setTitle(title);
         chart.setXAxisTitle(axes.xTitle());
         chart.setYAxisTitle(axes.yTitle());
         HeatMapStyler s = chart.getStyler();
         style.apply(s, !title.isEmpty());
         s.setLegendPosition(Styler.LegendPosition.OutsideE);
-        s.setDrawBorder(false);
+        s.setDrawBorder(true);
         s.setShowValue(false);
         s.setPlotContentSize(1.0);
         s.setGradientColorColumnHeight(Math.max(120, style.height() / 2));
@@ -500,6 +509,7 @@ public final class Figures {
         if (!drawable) {
             throw new IllegalArgumentException("figure " + baseName + " has nothing to draw: " + plot.notes());
         }
+        plot.plainLogTickLabels();
         return new FigureResult(FigureFiles.write(plot.chart(), directory, baseName, formats, style.dpi()),
             plot.notes());
     }

@@ -59,6 +59,29 @@ final class Plot {
         s.setLegendPosition(Styler.LegendPosition.OutsideE);
     }
 
+    /**
+     * Plain decimal tick labels on log axes ("10000", "0.001") instead of XChart's "1E4" and "1E-3",
+     * when every value lies where a six-decimal pattern is exact. A tick-label formatting function is
+     * not an option: XChart then computes linear ticks, which never finishes on a log axis spanning
+     * decades.
+     */
+    void plainLogTickLabels() {
+        double[] xr = {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+        double[] yr = {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+        for (XYSeries s : chart.getSeriesMap().values()) {
+            xr[0] = Math.min(xr[0], s.getXMin());
+            xr[1] = Math.max(xr[1], s.getXMax());
+            yr[0] = Math.min(yr[0], s.getYMin());
+            yr[1] = Math.max(yr[1], s.getYMax());
+        }
+        if (logX && xr[0] >= 1e-6 && xr[1] <= 1e7) {
+            chart.getStyler().setXAxisDecimalPattern("0.######");
+        }
+        if (logY && yr[0] >= 1e-6 && yr[1] <= 1e7) {
+            chart.getStyler().setYAxisDecimalPattern("0.######");
+        }
+    }
+
     XYChart chart() {
         return chart;
     }
