@@ -129,7 +129,7 @@ public final class Figures {
         Plot plot = new Plot(style, data.title(), "game length n (rounds)", "frequency of state (fraction of rounds)",
             true, false);
         double[] range = xRange(data.simulated(), data.exact(), true);
-        double span = range[0] > 0 && range[1] > range[0] ? Math.log10(range[1] / range[0]) : 1;
+        double span = range[0] > 0 && range[1] > range[0] ? Math.log10(range[1] / range[0]) : 0;
         double[] stationary = data.stationary();
         for (int s = 0; s < State.COUNT; s++) {
             Curve c = data.exact().get(s);
@@ -193,11 +193,7 @@ public final class Figures {
             } else {
                 plot.note("sampling reference line not drawn: the first drawable game length is the largest");
             }
-            var s = plot.chart().addSeries("observed error", observed[0], observed[1]);
-            s.setMarker(Plot.MARKERS[0]);
-            s.setMarkerColor(Palette.BLUE);
-            s.setLineColor(Palette.BLUE);
-            s.setLineStyle(new java.awt.BasicStroke(1.0f));
+            plot.markedLine("observed error", observed[0], observed[1], Palette.BLUE, Plot.MARKERS[0], Plot.THIN);
         } else {
             plot.note("observed error: nothing drawn, no usable points");
         }
@@ -230,7 +226,7 @@ public final class Figures {
             simulated.add(data.simulatedY());
         }
         double[] range = xRange(simulated, List.of(data.exactX(), data.exactY()), false);
-        double offset = 0.004 * (range[1] > range[0] ? range[1] - range[0] : 1);
+        double offset = 0.004 * (range[1] > range[0] ? range[1] - range[0] : 0);
         plot.curve("X exact", "X exact payoff", data.exactX().x(), data.exactX().y(), Palette.BLUE, Plot.SOLID);
         plot.curve("Y exact", "Y exact payoff", data.exactY().x(), data.exactY().y(), Palette.ORANGE, Plot.SOLID);
         if (data.simulatedX() != null) {
@@ -263,7 +259,7 @@ public final class Figures {
         check(directory, baseName, data);
         Plot plot = new Plot(style, data.title(), "round t", "probability of state in round t", false, false);
         double[] range = xRange(data.simulated(), data.exact(), false);
-        double span = range[1] > range[0] ? range[1] - range[0] : 1;
+        double span = range[1] > range[0] ? range[1] - range[0] : 0;
         for (int s = 0; s < State.COUNT; s++) {
             Curve c = data.exact().get(s);
             plot.curve(null, STATE_NAMES[s] + " exact probability", c.x(), c.y(), Palette.STATES[s], Plot.SOLID);
@@ -509,7 +505,7 @@ public final class Figures {
         if (!drawable) {
             throw new IllegalArgumentException("figure " + baseName + " has nothing to draw: " + plot.notes());
         }
-        plot.plainLogTickLabels();
+        plot.finishAxes();
         return new FigureResult(FigureFiles.write(plot.chart(), directory, baseName, formats, style.dpi()),
             plot.notes());
     }

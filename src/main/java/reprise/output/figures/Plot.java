@@ -29,6 +29,7 @@ final class Plot {
         new float[] {1f, 5f}, 0f);
     static final BasicStroke DASH_DOT = new BasicStroke(1.8f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
         new float[] {10f, 4f, 2f, 4f}, 0f);
+    static final BasicStroke THIN = new BasicStroke(1.0f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
     static final BasicStroke ERROR_BAR = new BasicStroke(1.3f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER);
     static final BasicStroke[] LINE_STYLES = {SOLID, DASHED, DOTTED, DASH_DOT};
 
@@ -60,12 +61,14 @@ final class Plot {
     }
 
     /**
-     * Plain decimal tick labels on log axes ("10000", "0.001") instead of XChart's "1E4" and "1E-3",
-     * when every value lies where a six-decimal pattern is exact. A tick-label formatting function is
-     * not an option: XChart then computes linear ticks, which never finishes on a log axis spanning
-     * decades.
+     * Final axis settings once all series are in. A degenerate range (every x, or every y, the same,
+     * as with a single point) gets a symmetric margin, since XChart would otherwise zoom in on
+     * floating-point noise. Log axes get plain decimal tick labels ("10000", "0.001") instead of
+     * XChart's "1E4" and "1E-3" when every value lies where a six-decimal pattern is exact; a tick-label
+     * formatting function is not an option, as XChart then computes linear ticks, which never finishes
+     * on a log axis spanning decades.
      */
-    void plainLogTickLabels() {
+    void finishAxes() {
         double[] xr = {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
         double[] yr = {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
         for (XYSeries s : chart.getSeriesMap().values()) {
@@ -74,12 +77,31 @@ final class Plot {
             yr[0] = Math.min(yr[0], s.getYMin());
             yr[1] = Math.max(yr[1], s.getYMax());
         }
+        XYStyler st = chart.getStyler();
+        if (xr[0] == xr[1]) {
+            double[] m = margin(xr[0], logX);
+            st.setXAxisMin(m[0]);
+            st.setXAxisMax(m[1]);
+        }
+        if (yr[0] == yr[1]) {
+            double[] m = margin(yr[0], logY);
+            st.setYAxisMin(m[0]);
+            st.setYAxisMax(m[1]);
+        }
         if (logX && xr[0] >= 1e-6 && xr[1] <= 1e7) {
-            chart.getStyler().setXAxisDecimalPattern("0.######");
+            st.setXAxisDecimalPattern("0.######");
         }
         if (logY && yr[0] >= 1e-6 && yr[1] <= 1e7) {
-            chart.getStyler().setYAxisDecimalPattern("0.######");
+            st.setYAxisDecimalPattern("0.######");
         }
+    }
+
+    private static double[] margin(double v, boolean log) {
+        if (log) {
+            return new double[] {v / 3, v * 3};
+        }
+        double pad = v == 0 ? 1 : Math.abs(v) / 2;
+        return new double[] {v - pad, v + pad};
     }
 
     XYChart chart() {
@@ -220,6 +242,18 @@ final class Plot {
         s.setShowInLegend(legendName != null);
         visibleSeries++;
         return true;
+    }
+
+    /** Markers joined by a line, for points already filtered with {@link #drawable}. */
+    void markedLine(String legendName, double[] x, double[] y, Color color, Marker marker, BasicStroke stroke) {
+        XYSeries s = chart.addSeries(name(legendName), x, y);
+        s.setXYSeriesRenderStyle(XYSeriesRenderStyle.Line);
+        s.setMarker(marker);
+        s.setMarkerColor(color);
+        s.setLineColor(color);
+        s.setLineStyle(stroke);
+        s.setShowInLegend(legendName != null);
+        visibleSeries++;
     }
 
     /** A legend-only entry explaining a line style; see the implementation note. */

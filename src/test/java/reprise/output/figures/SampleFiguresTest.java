@@ -22,5 +22,10 @@ class SampleFiguresTest {
         assertEquals(2, f.pValueCalibration(DIR, "e_qq", SampleData.calibration(15)).files().size());
         assertEquals(2, f.valueHeatmap(DIR, "f_values", SampleData.gridValues()).files().size());
         assertEquals(2, f.verdictHeatmap(DIR, "f_verdicts", SampleData.gridVerdicts()).files().size());
+        FiguresTest.everyFigureWithOnePoint().forEach(a -> {
+            @SuppressWarnings("unchecked")
+            var draw = (java.util.function.BiFunction<Path, String, FigureResult>) a.get()[1];
+            assertEquals(2, draw.apply(DIR, "single_" + a.get()[0]).files().size());
+        });
     }
 }
