@@ -1,0 +1,69 @@
+package reprise.output.figures;
+
+import java.nio.charset.StandardCharsets;
+import java.text.Normalizer;
+import java.util.Locale;
+import java.util.Set;
+import java.util.zip.CRC32;
+
+/**
+ * File names that are safe on Linux, macOS and Windows, made from free-form case names.
+ *
+ * <p>Accents are stripped, every run of characters other than ASCII letters, digits, '.', '_' and '-'
+ * becomes one '_', and leading or trailing dots, underscores and hyphens are removed. Whenever this
+ * changed the name, an 8-digit hexadecimal CRC-32 of the original (UTF-8) is appended, so two case
+ * names that differ only in replaced characters ("e=0.1" and "e 0.1") still get different files.
+ * Names reserved by Windows (CON, NUL, COM1, ...) get a trailing '_'; results are at most
+ * {@value #MAX_LENGTH} characters.
+ */
+public final class FileNames {
+
+    /** The longest name returned, well under every common file system's limit. */
+    public static final int MAX_LENGTH = 96;
+
+    private static final Set<String> RESERVED = Set.of("CON", "PRN", "AUX", "NUL", "COM1", "COM2", "COM3", "COM4",
+        "COM5", "COM6", "COM7", "COM8", "COM9", "LPT1", "LPT2", "LPT3", "LPT4", "LPT5", "LPT6", "LPT7", "LPT8",
+        "LPT9");
+
+    private FileNames() {
+    }
+
+    /**
+     * A safe file name (without extension) for a case name.
+     *
+     * @param caseName any non-blank text
+     * @return the safe name; equal to {@code caseName} when that was already safe
+     * @throws IllegalArgumentException if {@code caseName} is null or blank
+     */
+    public static String safe(String caseName) {
+        if (caseName == null || caseName.isBlank()) {
+            throw new IllegalArgumentException("case name must not be blank: "
+                + (caseName == null ? "null" : "\"" + caseName + "\""));
+        }
+        String ascii = Normalizer.normalize(caseName, Normalizer.Form.NFKD).replaceAll("\\p{M}+", "");
+        String cleaned = ascii.replaceAll("[^A-Za-z0-9._-]+", "_").replaceAll("^[._-]+|[._-]+$", "");
+        boolean changed = !cleaned.equals(caseName);
+        if (cleaned.isEmpty()) {
+            cleaned = "case";
+        }
+        int stem = cleaned.indexOf('.') < 0 ? cleaned.length() : cleaned.indexOf('.');
+        if (RESERVED.contains(cleaned.substring(0, stem).toUpperCase(Locale.ROOT))) {
+            cleaned = cleaned.substring(0, stem) + "_" + cleaned.substring(stem);
+            changed = true;
+        }
+        int room = changed ? MAX_LENGTH - 9 : MAX_LENGTH;
+        if (cleaned.length() > room) {
+            cleaned = cleaned.substring(0, room).replaceAll("[._-]+$", "");
+            if (!changed) {
+                changed = true;
+                cleaned = cleaned.substring(0, Math.min(cleaned.length(), MAX_LENGTH - 9));
+            }
+        }
+        if (!changed) {
+            return cleaned;
+        }
+        CRC32 crc = new CRC32();
+        crc.update(caseName.getBytes(StandardCharsets.UTF_8));
+        return cleaned + "-" + String.format(Locale.ROOT, "%08x", crc.getValue());
+    }
+}
