@@ -189,8 +189,8 @@ public final class ExperimentFile {
         long replicates = longValue(top, "replicates", 1000, 1, MAX_REPLICATES, problems);
         long seed = longValue(top, "seed", 1, Long.MIN_VALUE, Long.MAX_VALUE, problems);
         double alpha = doubleValue(top, "alpha", 0.05, problems);
-        if (!(alpha > 0 && alpha < 1)) {
-            problems.add(line(top.get("alpha")), "alpha", "must be in (0, 1): " + num(alpha));
+        if (!(alpha > 0 && alpha < 0.5)) {
+            problems.add(line(top.get("alpha")), "alpha", "must be in (0, 0.5): " + num(alpha));
         }
         double tolerance = doubleValue(top, "tolerance", 0.01, problems);
         if (!(tolerance > 0)) {

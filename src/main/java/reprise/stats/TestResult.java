@@ -22,7 +22,7 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
      * Validates the result.
      *
      * @param statistic not NaN
-     * @param degreesOfFreedom at least 0
+     * @param degreesOfFreedom at least 0; positive infinity for a normal (z) reference
      * @param pValue in [0, 1]
      * @param note not null
      */
@@ -30,7 +30,10 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
         if (Double.isNaN(statistic)) {
             throw new IllegalArgumentException("test statistic must not be NaN");
         }
-        Checks.nonNegative("degrees of freedom", degreesOfFreedom);
+        if (!(degreesOfFreedom >= 0)) {
+            throw new IllegalArgumentException("degrees of freedom must be >= 0 (infinite for a normal reference): "
+                + degreesOfFreedom);
+        }
         Checks.probability("p-value", pValue);
         if (note == null) {
             throw new IllegalArgumentException("note must not be null (use an empty string)");

@@ -104,7 +104,7 @@ class ExperimentFileTest {
             Arguments.of(VALID.replace("game: pd:3,0,5,1", "game: pd:3,0,2,1"), ":3: game: a prisoner's dilemma needs"),
             Arguments.of(VALID.replace("snapshots: [1, 10]", "snapshots: [1, 60]"), "round 60 is past the end"),
             Arguments.of(VALID + "burn_in: 50\n", "burn_in: must be shorter than the shortest game (50 rounds): 50"),
-            Arguments.of(VALID + "alpha: 1.5\n", "alpha: must be in (0, 1): 1.5"),
+            Arguments.of(VALID + "alpha: 1.5\n", "alpha: must be in (0, 0.5): 1.5"),
             Arguments.of(VALID + "tests: [frequencies, wlad]\n", "tests: unknown value 'wlad'"),
             Arguments.of(VALID + "claims: missing.csv\n", "claims: no such file"),
             Arguments.of("- just\n- a list\n", ":1: file: must be a mapping"),

@@ -94,6 +94,13 @@ final class Plot {
         if (logY && yr[0] >= 1e-6 && yr[1] <= 1e7) {
             st.setYAxisDecimalPattern("0.######");
         }
+        // XChart's default linear pattern can drop the leading zero (".05"); keep it where the range allows.
+        if (!logX && Math.abs(xr[0]) <= 1e7 && Math.abs(xr[1]) <= 1e7 && xr[1] - xr[0] >= 1e-2) {
+            st.setXAxisDecimalPattern("0.###");
+        }
+        if (!logY && Math.abs(yr[0]) <= 1e7 && Math.abs(yr[1]) <= 1e7 && yr[1] - yr[0] >= 1e-2) {
+            st.setYAxisDecimalPattern("0.###");
+        }
     }
 
     private static double[] margin(double v, boolean log) {

@@ -1,0 +1,245 @@
+package reprise.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import java.util.stream.Stream;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+import reprise.experiment.Case;
+import reprise.experiment.CaseResult;
+import reprise.experiment.Claims;
+import reprise.experiment.Curves;
+import reprise.experiment.Experiment;
+import reprise.experiment.ExperimentFile;
+import reprise.experiment.InvalidExperimentException;
+import reprise.experiment.Runner;
+import reprise.output.CasesCsv;
+import reprise.output.CurvesCsv;
+import reprise.output.Plotter;
+import reprise.output.Provenance;
+import reprise.output.Report;
+import reprise.output.ResultsCsv;
+import reprise.sim.ProgressListener;
+import reprise.sim.Simulator;
+
+/** {@code check}: the main job. Runs an experiment file and writes results, figures and a report. */
+@Command(name = "check", mixinStandardHelpOptions = true,
+    description = {"Runs an experiment: for every case of its grid, computes the exact predictions, simulates "
+        + "the games, compares the two (and any claimed values) with tests that are valid for autocorrelated "
+        + "play, corrects for multiple testing, and writes results.csv, cases.csv, curves.csv, report.md, "
+        + "run.json and figures/ into the output folder.",
+        "Exit 0 when every comparison agrees or is consistent, 1 when any disagrees, 2 for bad input."})
+final class CheckCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "FILE", description = "The experiment file (YAML).")
+    Path file;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Output folder (default: the file's output:, or "
+        + "results/NAME).")
+    Path out;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads. Default: all cores.")
+    Integer threads;
+
+    @Option(names = "--force", description = "Replace the results of an earlier run in the output folder.")
+    boolean force;
+
+    @Option(names = "--quiet", description = "No progress on stderr.")
+    boolean quiet;
+
+    /** The files a finished run writes into the output folder (besides figures/). */
+    static final List<String> OUTPUTS = List.of("results.csv", "cases.csv", "curves.csv", "report.md", "run.json");
+
+    @Override
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        Instant start = Instant.now();
+        Experiment e;
+        Map<Integer, Map<String, Claims.Claim>> claims = Map.of();
+        List<Case> cases;
+        try {
+            e = ExperimentFile.read(file);
+            cases = e.cases();
+            if (e.claims() != null) {
+                claims = Claims.read(e.claims(), e, cases);
+            }
+        } catch (InvalidExperimentException ex) {
+            ex.problems().forEach(line -> err.println("reprise check: " + line));
+            return Main.BAD_INPUT;
+        }
+        Path dir = out != null ? out : e.output();
+        int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
+        if (nThreads < 1) {
+            throw new IllegalArgumentException("--threads must be at least 1: " + nThreads);
+        }
+        checkOutputFolder(dir, force);
+        for (Case c : cases) {
+            try {
+                new Simulator(Runner.spec(e, c, nThreads));
+            } catch (IllegalArgumentException ex) {
+                throw new IllegalArgumentException(file + ": case " + c.id() + ": " + ex.getMessage(), ex);
+            }
+        }
+        double expected = cases.stream().mapToDouble(c -> c.horizon().expectedLength()).sum() * e.replicates();
+        RunProgress progress = new RunProgress(err, !quiet, cases.size(), expected);
+        List<CaseResult> results = new ArrayList<>();
+        for (Case c : cases) {
+            progress.startCase(c, results.size());
+            CaseResult r = Runner.runCase(e, c, nThreads, progress);
+            progress.endCase(r.simulation().roundsTotal(), c.horizon().expectedLength() * e.replicates());
+            results.add(r);
+        }
+        progress.finish();
+        Runner.Outcome outcome = Runner.analyse(e, results, claims);
+        int code = outcome.disagrees() ? Main.DISAGREES : Main.OK;
+        write(dir, e, results, outcome, start, code, nThreads);
+        PrintWriter stdout = spec.commandLine().getOut();
+        long bad = outcome.rows().stream().filter(r -> r.verdict() == reprise.experiment.Verdict.DISAGREES
+            && !r.comparison().equals("stationary")).count();
+        stdout.printf(Locale.ROOT, "%s: %d cases, %d comparisons, %s; results in %s%n", e.name(), cases.size(),
+            outcome.rows().size(), bad == 0 ? "no disagreement" : bad + " disagree", dir);
+        outcome.rows().stream().filter(r -> r.verdict() == reprise.experiment.Verdict.DISAGREES
+            && !r.comparison().equals("stationary")).forEach(r -> stdout.printf(Locale.ROOT,
+            "  disagrees: %s %s (%s): predicted %s, observed %s%n", r.caseId(), r.quantity(), r.comparison(),
+            Double.isNaN(r.predicted()) ? "-" : String.format(Locale.ROOT, "%.6g", r.predicted()),
+            Double.isNaN(r.observed()) ? "-" : String.format(Locale.ROOT, "%.6g", r.observed())));
+        return code;
+    }
+
+    private void write(Path dir, Experiment e, List<CaseResult> results, Runner.Outcome outcome, Instant start, int code,
+        int nThreads) {
+        List<String> params = List.copyOf(e.parameters().keySet());
+        List<Case> cases = results.stream().map(CaseResult::c).toList();
+        List<Curves.Point> points = Curves.of(e, results, outcome.rows(), 1 - e.alpha());
+        CurvesCsv.write(dir.resolve("curves.csv"), points);
+        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"));
+        ResultsCsv.write(dir.resolve("results.csv"), cases, params, outcome.rows());
+        CasesCsv.write(dir.resolve("cases.csv"), params, results);
+        Instant end = Instant.now();
+        Report.write(dir.resolve("report.md"), new Report.Content(e, results, outcome, drawn, Main.version(),
+            Simulator.GENERATOR, start, end));
+        List<String> outputs = new ArrayList<>(OUTPUTS);
+        for (Plotter.Drawn d : drawn) {
+            d.result().files().forEach(f -> outputs.add(dir.toAbsolutePath().relativize(f.toAbsolutePath()).toString()));
+        }
+        Provenance.write(dir.resolve("run.json"), new Provenance.Run(Main.version(),
+            List.copyOf(spec.commandLine().getParseResult().originalArgs()), file, e.sha256(), e.claims(),
+            e.claims() == null ? null : sha256(e.claims()), e.seed(), Simulator.GENERATOR,
+            "case i: SplitMix64(seed + (i+1) * 0x9E3779B97F4A7C15); game g of a case: the simulator's stream for "
+                + "(case seed, g)", nThreads, results.size(), results.stream().mapToLong(r -> r.simulation().roundsTotal())
+                .sum(), start, end, code, outputs));
+    }
+
+    static void checkOutputFolder(Path dir, boolean force) {
+        if (Files.exists(dir) && !Files.isDirectory(dir)) {
+            throw new IllegalArgumentException("--out: " + dir + " is a file, not a folder");
+        }
+        if (Files.isDirectory(dir) && !force) {
+            for (String f : OUTPUTS) {
+                if (Files.exists(dir.resolve(f))) {
+                    throw new IllegalArgumentException("--out: " + dir + " holds the results of an earlier run ("
+                        + f + "); use --force to replace them, or another --out");
+                }
+            }
+        }
+        try {
+            Files.createDirectories(dir);
+            Path probe = Files.createTempFile(dir, ".write-test", ".tmp");
+            Files.delete(probe);
+        } catch (IOException | UnsupportedOperationException ex) {
+            throw new IllegalArgumentException("--out: cannot write into " + dir + ": " + ex.getMessage(), ex);
+        }
+        if (force) {
+            try (Stream<Path> old = Files.list(dir.resolve("figures"))) {
+                for (Path p : (Iterable<Path>) old::iterator) {
+                    Files.deleteIfExists(p);
+                }
+            } catch (IOException ignored) {
+                // no figures folder yet: nothing to clear
+            }
+        }
+    }
+
+    private static String sha256(Path p) {
+        try {
+            java.security.MessageDigest md = java.security.MessageDigest.getInstance("SHA-256");
+            return java.util.HexFormat.of().formatHex(md.digest(Files.readAllBytes(p)));
+        } catch (IOException | java.security.NoSuchAlgorithmException ex) {
+            return null;
+        }
+    }
+
+    /** Progress over the whole run: cases done, rounds per second, time left. */
+    static final class RunProgress implements ProgressListener {
+        private final ProgressLine line;
+        private final int cases;
+        private final double expectedTotal;
+        private final long start = System.nanoTime();
+        private final PrintWriter err;
+        private final boolean enabled;
+        private double doneBefore;
+        private int index;
+        private String id = "";
+        private long lastDraw;
+
+        RunProgress(PrintWriter err, boolean enabled, int cases, double expectedTotal) {
+            this.err = err;
+            this.enabled = enabled;
+            this.line = new ProgressLine(err, false, "");
+            this.cases = cases;
+            this.expectedTotal = expectedTotal;
+        }
+
+        void startCase(Case c, int i) {
+            index = i;
+            id = c.id();
+        }
+
+        void endCase(long rounds, double expected) {
+            doneBefore += expected;
+        }
+
+        @Override
+        public synchronized void progress(long replicatesDone, long replicates, long roundsDone, long roundsExpected) {
+            if (!enabled) {
+                return;
+            }
+            long now = System.nanoTime();
+            if (now - start < 2_000_000_000L || now - lastDraw < 500_000_000L) {
+                return;
+            }
+            lastDraw = now;
+            double frac = replicates == 0 ? 0 : (double) replicatesDone / replicates;
+            double expectedCase = roundsExpected;
+            double done = doneBefore + frac * expectedCase;
+            double seconds = (now - start) / 1e9;
+            double rate = done / seconds;
+            double left = rate > 0 ? (expectedTotal - done) / rate : 0;
+            err.print(String.format(Locale.ROOT, "\rcase %d/%d %s: %.3g rounds/s, about %s left        ", index + 1,
+                cases, id, rate, ProgressLine.duration(left)));
+            err.flush();
+        }
+
+        void finish() {
+            if (enabled && lastDraw != 0) {
+                err.println();
+                err.flush();
+            }
+            line.finish();
+        }
+    }
+}

@@ -1,0 +1,40 @@
+package reprise.cli;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+import reprise.output.CurvesCsv;
+import reprise.output.Plotter;
+
+/** {@code plot}: redraws the figures of a results folder from its curves.csv, without simulating again. */
+@Command(name = "plot", mixinStandardHelpOptions = true,
+    description = "Redraws the figures of a results folder (written by check) from its curves.csv into its "
+        + "figures/ folder, without simulating again.")
+final class PlotCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "RESULTS_DIR", description = "A folder written by check.")
+    Path dir;
+
+    @Override
+    public Integer call() {
+        Path curves = dir.resolve("curves.csv");
+        if (!Files.isRegularFile(curves)) {
+            throw new IllegalArgumentException(dir + " is not a results folder: no curves.csv in it");
+        }
+        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures"));
+        for (Plotter.Drawn d : drawn) {
+            d.result().files().forEach(f -> spec.commandLine().getOut().println(f));
+            d.result().notes().forEach(n -> spec.commandLine().getErr().println("plot: " + d.kind() + " (" + d.group()
+                + "): " + n));
+        }
+        return Main.OK;
+    }
+}

@@ -1,0 +1,235 @@
+package reprise.experiment;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import reprise.chain.NoPredictionException;
+import reprise.game.Horizon;
+import reprise.sim.ProgressListener;
+import reprise.sim.SimulationResult;
+import reprise.sim.SimulationSpec;
+import reprise.sim.Simulator;
+import reprise.stats.MultipleTesting;
+
+/**
+ * Runs an experiment: per case the exact side and the simulation, then the comparisons with the
+ * multiple-testing correction applied across the whole experiment.
+ *
+ * <p>Seeds: case i's master seed is {@link #caseSeed(long, int)} of the experiment's seed, so a case's
+ * numbers do not depend on which other cases are in the file before it is expanded, only on its index;
+ * game g of that case then uses the simulator's stream for (case seed, g).
+ */
+public final class Runner {
+
+    /** A mixing time longer than this fraction of the game length triggers a warning. */
+    static final double MIXING_WARNING_FRACTION = 0.1;
+    /** A second eigenvalue modulus this close to 1 marks a nearly reducible chain. */
+    static final double NEARLY_REDUCIBLE = 1e-6;
+    /** More tests than this without a correction triggers a warning. */
+    static final int MANY_TESTS = 20;
+
+    private Runner() {
+    }
+
+    /**
+     * The overall outcome.
+     *
+     * @param rows every result row, corrected, in case order
+     * @param warnings experiment-level warnings
+     * @param disagrees whether any row that can make the experiment fail disagrees
+     */
+    public record Outcome(List<ResultRow> rows, List<String> warnings, boolean disagrees) {
+    }
+
+    /**
+     * Case i's master seed: the SplitMix64 output function applied to seed + (i + 1) * 0x9E3779B97F4A7C15.
+     *
+     * <p>References: Steele, G.L., Lea, D. &amp; Flood, C.H. (2014). Fast splittable pseudorandom number
+     * generators. OOPSLA 2014, 453-472.
+     *
+     * @param seed the experiment's seed
+     * @param index the case index
+     * @return the case's seed
+     */
+    public static long caseSeed(long seed, int index) {
+        long z = seed + (index + 1L) * 0x9E3779B97F4A7C15L;
+        z = (z ^ (z >>> 30)) * 0xBF58476D1CE4E5B9L;
+        z = (z ^ (z >>> 27)) * 0x94D049BB133111EBL;
+        return z ^ (z >>> 31);
+    }
+
+    /**
+     * The simulation spec of a case.
+     *
+     * @param e the experiment
+     * @param c the case
+     * @param threads worker threads
+     * @return the spec
+     */
+    public static SimulationSpec spec(Experiment e, Case c, int threads) {
+        long[] snaps = e.snapshots().stream().mapToLong(Long::longValue).toArray();
+        return SimulationSpec.of(c.match(), c.horizon(), e.replicates(), caseSeed(e.seed(), c.index()))
+            .withBurnIn(e.burnIn()).withSnapshots(snaps).withThreads(threads);
+    }
+
+    /**
+     * The exact side of a case, or the reason there is none.
+     *
+     * @param e the experiment
+     * @param c the case
+     * @param warnings receives guard-rail warnings
+     * @return the exact side, or null (a reason is added to {@code warnings} as its first entry)
+     */
+    static CaseAnalysis.Exact exact(Experiment e, Case c, List<String> warnings) {
+        try {
+            CaseAnalysis.Exact exact = CaseAnalysis.exact(c.match(), c.horizon(), e.burnIn());
+            double length = c.horizon().expectedLength();
+            if (exact.prediction().mixingTime().isPresent()) {
+                long t = exact.prediction().mixingTime().getAsLong();
+                if (t > MIXING_WARNING_FRACTION * length) {
+                    warnings.add(String.format(Locale.ROOT, "mixing time %d rounds is long against the game length "
+                        + "(%s): stationary values cannot be expected to hold; see the finite-horizon bias", t,
+                        c.horizon().describe()));
+                }
+            }
+            double slem = exact.prediction().secondEigenvalueModulus();
+            if (exact.prediction().stationary() != null && slem > 1 - NEARLY_REDUCIBLE) {
+                warnings.add(String.format(Locale.ROOT, "nearly reducible chain (second eigenvalue modulus 1 - %.2g): "
+                    + "the stationary distribution is ill-conditioned and mixing is very slow", 1 - slem));
+            }
+            if (exact.prediction().stationary() == null) {
+                warnings.add("no unique stationary distribution: " + exact.prediction().stationaryNote());
+            }
+            if (exact.transitions() == null && exact.transitionsNote() != null
+                && e.tests().contains(Experiment.Comparison.TRANSITIONS)) {
+                warnings.add("no transition test: " + exact.transitionsNote());
+            }
+            return exact;
+        } catch (NoPredictionException ex) {
+            warnings.add(0, ex.getMessage());
+            return null;
+        }
+    }
+
+    /**
+     * Runs one case: exact side and simulation.
+     *
+     * @param e the experiment
+     * @param c the case
+     * @param threads worker threads
+     * @param listener progress, or null
+     * @return the case result
+     */
+    public static CaseResult runCase(Experiment e, Case c, int threads, ProgressListener listener) {
+        List<String> warnings = new ArrayList<>();
+        CaseAnalysis.Exact exact = exact(e, c, warnings);
+        SimulationResult sim = new Simulator(spec(e, c, threads)).run(listener);
+        return withSimulation(e, c, sim, exact, warnings);
+    }
+
+    /**
+     * Joins a case's simulation (for example merged from shards) with its exact side.
+     *
+     * @param e the experiment
+     * @param c the case
+     * @param sim the simulation over all replicates
+     * @return the case result
+     */
+    public static CaseResult fromSimulation(Experiment e, Case c, SimulationResult sim) {
+        List<String> warnings = new ArrayList<>();
+        CaseAnalysis.Exact exact = exact(e, c, warnings);
+        return withSimulation(e, c, sim, exact, warnings);
+    }
+
+    private static CaseResult withSimulation(Experiment e, Case c, SimulationResult sim, CaseAnalysis.Exact exact,
+        List<String> warnings) {
+        if (sim.gamesTallied() < sim.replicates() && c.horizon() instanceof Horizon.Continuation) {
+            warnings.add(String.format(Locale.ROOT, "%d of %d games ended within the burn-in and count as empty "
+                + "games", sim.replicates() - sim.gamesTallied(), sim.replicates()));
+        }
+        return new CaseResult(c, caseSeed(e.seed(), c.index()), sim, exact, exact == null ? warnings.get(0) : null,
+            warnings);
+    }
+
+    /**
+     * Compares every case and applies the correction across the experiment.
+     *
+     * @param e the experiment
+     * @param results the case results, in case order
+     * @param claims claims by case index (may be empty)
+     * @return the outcome
+     */
+    public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, Map<String, Claims.Claim>> claims) {
+        List<Comparisons.Pending> pending = new ArrayList<>();
+        for (CaseResult r : results) {
+            pending.addAll(Comparisons.rows(e, r, claims.get(r.c().index())));
+        }
+        List<Integer> diff = new ArrayList<>();
+        List<Integer> equiv = new ArrayList<>();
+        for (int i = 0; i < pending.size(); i++) {
+            Comparisons.Pending p = pending.get(i);
+            if (p.counts() && Double.isFinite(p.row().pValue())) {
+                diff.add(i);
+            }
+            if (p.counts() && p.margin() && Double.isFinite(p.equivalenceP())) {
+                equiv.add(i);
+            }
+        }
+        double[] adjDiff = adjust(e, pending, diff, true);
+        double[] adjEquiv = adjust(e, pending, equiv, false);
+        double[] byRowDiff = new double[pending.size()];
+        double[] byRowEquiv = new double[pending.size()];
+        java.util.Arrays.fill(byRowDiff, Double.NaN);
+        java.util.Arrays.fill(byRowEquiv, Double.NaN);
+        for (int k = 0; k < diff.size(); k++) {
+            byRowDiff[diff.get(k)] = adjDiff[k];
+        }
+        for (int k = 0; k < equiv.size(); k++) {
+            byRowEquiv[equiv.get(k)] = adjEquiv[k];
+        }
+        List<ResultRow> rows = new ArrayList<>();
+        boolean disagrees = false;
+        double alpha = e.alpha();
+        for (int i = 0; i < pending.size(); i++) {
+            Comparisons.Pending p = pending.get(i);
+            ResultRow row = p.row();
+            Verdict v = row.verdict();
+            if (p.counts() && Double.isFinite(row.pValue())) {
+                boolean rejected = byRowDiff[i] < alpha;
+                if (p.margin()) {
+                    boolean outside = Math.abs(row.observed() - row.predicted()) > e.tolerance();
+                    v = rejected && outside ? Verdict.DISAGREES : byRowEquiv[i] < alpha ? Verdict.AGREES
+                        : Verdict.INCONCLUSIVE;
+                } else {
+                    v = rejected ? Verdict.DISAGREES : Verdict.CONSISTENT;
+                }
+            }
+            rows.add(row.adjusted(p.counts() ? byRowDiff[i] : Double.NaN, v));
+            disagrees |= p.counts() && v == Verdict.DISAGREES;
+        }
+        List<String> warnings = new ArrayList<>();
+        if (e.correction() == Experiment.Correction.NONE && diff.size() > MANY_TESTS) {
+            warnings.add(diff.size() + " tests were made without a multiple-testing correction: at alpha = " + alpha
+                + " about " + Math.round(diff.size() * alpha) + " false alarms are expected even if every prediction "
+                + "is right (use correction: holm)");
+        }
+        return new Outcome(rows, warnings, disagrees);
+    }
+
+    private static double[] adjust(Experiment e, List<Comparisons.Pending> pending, List<Integer> idx, boolean diff) {
+        double[] p = new double[idx.size()];
+        for (int k = 0; k < p.length; k++) {
+            Comparisons.Pending r = pending.get(idx.get(k));
+            p[k] = diff ? r.row().pValue() : r.equivalenceP();
+        }
+        if (p.length == 0) {
+            return p;
+        }
+        return switch (e.correction()) {
+            case HOLM -> MultipleTesting.adjust(p, MultipleTesting.Method.HOLM);
+            case BH -> MultipleTesting.adjust(p, MultipleTesting.Method.BENJAMINI_HOCHBERG);
+            case NONE -> p;
+        };
+    }
+}

@@ -1,0 +1,69 @@
+package reprise.output;
+
+import java.io.IOException;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVPrinter;
+import org.apache.commons.csv.CSVRecord;
+import reprise.experiment.Curves;
+
+/**
+ * {@code curves.csv}: the tidy points every figure is drawn from (columns figure, group, series, x, y,
+ * value, lower, upper; see {@link Curves}).
+ */
+public final class CurvesCsv {
+    private static final String[] HEADER = {"figure", "group", "series", "x", "y", "value", "lower", "upper"};
+
+    private CurvesCsv() {
+    }
+
+    /**
+     * Writes the points atomically.
+     *
+     * @param file the target
+     * @param points the points
+     */
+    public static void write(Path file, List<Curves.Point> points) {
+        AtomicFiles.writeText(file, w -> {
+            try (CSVPrinter out = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setHeader(HEADER)
+                .setRecordSeparator('\n').build())) {
+                for (Curves.Point p : points) {
+                    out.printRecord(p.figure(), p.group(), p.series(), ResultsCsv.num(p.x()), ResultsCsv.num(p.y()),
+                        ResultsCsv.num(p.value()), ResultsCsv.num(p.lower()), ResultsCsv.num(p.upper()));
+                }
+            }
+        });
+    }
+
+    /**
+     * Reads points back.
+     *
+     * @param file the file
+     * @return the points in file order
+     */
+    public static List<Curves.Point> read(Path file) {
+        List<Curves.Point> out = new ArrayList<>();
+        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8);
+             CSVParser p = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).build().parse(r)) {
+            if (!p.getHeaderNames().equals(List.of(HEADER))) {
+                throw new IllegalArgumentException(file + ": not a curves file (header " + p.getHeaderNames() + ")");
+            }
+            for (CSVRecord rec : p) {
+                out.add(new Curves.Point(rec.get(0), rec.get(1), rec.get(2), ResultsCsv.parse(rec.get(3)),
+                    ResultsCsv.parse(rec.get(4)), ResultsCsv.parse(rec.get(5)), ResultsCsv.parse(rec.get(6)),
+                    ResultsCsv.parse(rec.get(7))));
+            }
+        } catch (IOException e) {
+            throw new IllegalArgumentException(file + ": cannot be read: " + e.getMessage(), e);
+        } catch (NumberFormatException e) {
+            throw new IllegalArgumentException(file + ": a number cannot be read: " + e.getMessage(), e);
+        }
+        return out;
+    }
+}

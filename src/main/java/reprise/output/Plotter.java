@@ -1,0 +1,187 @@
+package reprise.output;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeSet;
+import reprise.experiment.Curves;
+import reprise.game.State;
+import reprise.output.figures.ConvergenceData;
+import reprise.output.figures.Curve;
+import reprise.output.figures.ErrorScalingData;
+import reprise.output.figures.Estimates;
+import reprise.output.figures.FigureResult;
+import reprise.output.figures.Figures;
+import reprise.output.figures.FileNames;
+import reprise.output.figures.GridAxes;
+import reprise.output.figures.GridValues;
+import reprise.output.figures.GridVerdicts;
+import reprise.output.figures.PayoffData;
+import reprise.output.figures.StateDistributionData;
+
+/** Draws every figure from the tidy points of {@code curves.csv}. */
+public final class Plotter {
+
+    /**
+     * A figure written, with what it shows.
+     *
+     * @param kind the figure kind
+     * @param group the group it shows
+     * @param result the files and notes
+     */
+    public record Drawn(String kind, String group, FigureResult result) {
+    }
+
+    private Plotter() {
+    }
+
+    /**
+     * Draws all figures.
+     *
+     * @param points the points
+     * @param directory where the figures go
+     * @return what was drawn, in order
+     */
+    public static List<Drawn> draw(List<Curves.Point> points, Path directory) {
+        Figures figures = Figures.withDefaults();
+        Map<String, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
+        for (Curves.Point p : points) {
+            byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
+                .computeIfAbsent(p.group(), k -> new ArrayList<>()).add(p);
+        }
+        List<Drawn> out = new ArrayList<>();
+        byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> {
+            String base = FileNames.safe(figure + "-" + group);
+            FigureResult r = switch (figure) {
+                case "convergence" -> convergence(figures, directory, base, pts);
+                case "error" -> error(figures, directory, base, pts);
+                case "payoff" -> payoff(figures, directory, base, pts);
+                case "distribution" -> distribution(figures, directory, base, pts);
+                case "deviation" -> deviation(figures, directory, base, pts);
+                case "verdicts" -> verdicts(figures, directory, base, pts);
+                default -> null;
+            };
+            if (r != null) {
+                out.add(new Drawn(figure, group, r));
+            }
+        }));
+        return out;
+    }
+
+    private static List<Curves.Point> series(List<Curves.Point> pts, String name) {
+        return pts.stream().filter(p -> p.series().equals(name)).toList();
+    }
+
+    private static double[] xs(List<Curves.Point> pts) {
+        return pts.stream().mapToDouble(Curves.Point::x).toArray();
+    }
+
+    private static double[] ys(List<Curves.Point> pts) {
+        return pts.stream().mapToDouble(Curves.Point::y).toArray();
+    }
+
+    private static Estimates estimates(List<Curves.Point> pts) {
+        return new Estimates(xs(pts), ys(pts), pts.stream().mapToDouble(Curves.Point::lower).toArray(),
+            pts.stream().mapToDouble(Curves.Point::upper).toArray());
+    }
+
+    private static FigureResult convergence(Figures f, Path dir, String base, List<Curves.Point> pts) {
+        List<Estimates> sim = new ArrayList<>();
+        List<Curve> exact = new ArrayList<>();
+        double[] stationary = new double[4];
+        for (int s = 0; s < 4; s++) {
+            String name = State.of(s).name();
+            List<Curves.Point> e = series(pts, name + " exact");
+            List<Curves.Point> st = series(pts, name + " stationary");
+            if (e.isEmpty()) {
+                return null;
+            }
+            sim.add(estimates(series(pts, name + " simulated")));
+            exact.add(new Curve(xs(e), ys(e)));
+            stationary[s] = st.isEmpty() ? Double.NaN : st.get(0).y();
+        }
+        return f.convergence(dir, base, new ConvergenceData("", sim, exact, stationary));
+    }
+
+    private static FigureResult error(Figures f, Path dir, String base, List<Curves.Point> pts) {
+        List<Curves.Point> sim = series(pts, "simulated");
+        List<Curves.Point> bias = series(pts, "exact bias");
+        if (sim.isEmpty()) {
+            return null;
+        }
+        return f.errorScaling(dir, base, new ErrorScalingData("", "payoff of X per round", xs(sim), ys(sim),
+            bias.isEmpty() ? null : new Curve(xs(bias), ys(bias))));
+    }
+
+    private static FigureResult payoff(Figures f, Path dir, String base, List<Curves.Point> pts) {
+        List<Curves.Point> ex = series(pts, "X exact");
+        List<Curves.Point> ey = series(pts, "Y exact");
+        if (ex.isEmpty()) {
+            return null;
+        }
+        List<Curves.Point> sx = series(pts, "X simulated");
+        List<Curves.Point> sy = series(pts, "Y simulated");
+        return f.payoffByContinuation(dir, base, new PayoffData("", "payoff per round, E[total] / E[length]",
+            new Curve(xs(ex), ys(ex)), new Curve(xs(ey), ys(ey)), sx.isEmpty() ? null : estimates(sx),
+            sy.isEmpty() ? null : estimates(sy)));
+    }
+
+    private static FigureResult distribution(Figures f, Path dir, String base, List<Curves.Point> pts) {
+        List<Curve> exact = new ArrayList<>();
+        List<Estimates> sim = new ArrayList<>();
+        for (int s = 0; s < 4; s++) {
+            String name = State.of(s).name();
+            List<Curves.Point> e = series(pts, name + " exact");
+            List<Curves.Point> m = series(pts, name + " simulated");
+            if (e.isEmpty() || m.isEmpty()) {
+                return null;
+            }
+            exact.add(new Curve(xs(e), ys(e)));
+            sim.add(estimates(m));
+        }
+        return f.stateDistribution(dir, base, new StateDistributionData("", exact, sim));
+    }
+
+    private record Grid(List<String> xLabels, List<String> yLabels, List<Double> xs, List<Double> ys) {
+    }
+
+    private static Grid grid(List<Curves.Point> pts) {
+        TreeSet<Double> x = new TreeSet<>();
+        TreeSet<Double> y = new TreeSet<>();
+        for (Curves.Point p : pts) {
+            x.add(p.x());
+            y.add(p.y());
+        }
+        List<String> xl = x.stream().map(ResultsCsv::label).toList();
+        List<String> yl = y.stream().map(ResultsCsv::label).toList();
+        return new Grid(xl, yl, List.copyOf(x), List.copyOf(y));
+    }
+
+    private static FigureResult deviation(Figures f, Path dir, String base, List<Curves.Point> pts) {
+        Grid g = grid(pts);
+        double[][] v = new double[g.ys().size()][g.xs().size()];
+        for (double[] row : v) {
+            java.util.Arrays.fill(row, Double.NaN);
+        }
+        for (Curves.Point p : pts) {
+            v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = p.value();
+        }
+        return f.valueHeatmap(dir, base, new GridValues("", new GridAxes("execution error", g.xLabels(),
+            "game length (rounds)", g.yLabels()), "|observed - stationary| payoff of X", v));
+    }
+
+    private static FigureResult verdicts(Figures f, Path dir, String base, List<Curves.Point> pts) {
+        Grid g = grid(pts);
+        int[][] v = new int[g.ys().size()][g.xs().size()];
+        for (int[] row : v) {
+            java.util.Arrays.fill(row, -1);
+        }
+        for (Curves.Point p : pts) {
+            v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = (int) p.value();
+        }
+        return f.verdictHeatmap(dir, base, new GridVerdicts("", new GridAxes("execution error", g.xLabels(),
+            "game length (rounds)", g.yLabels()), List.of("stationary holds", "inconclusive", "stationary fails"), v));
+    }
+}

@@ -1,0 +1,143 @@
+package reprise.output;
+
+import java.io.IOException;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVPrinter;
+import org.apache.commons.csv.CSVRecord;
+import reprise.experiment.Case;
+import reprise.experiment.ResultRow;
+import reprise.experiment.Verdict;
+import reprise.game.Horizon;
+
+/**
+ * {@code results.csv}: one row per case x quantity x comparison, in tidy long format.
+ *
+ * <p>Columns: case, pair, x, y, noise, misperception, horizon, horizon_value, one {@code param_NAME} per grid
+ * parameter, quantity, comparison, predicted, observed, ci_lower, ci_upper, statistic, df, p_value,
+ * p_adjusted, verdict, note. Numbers are written with {@link Double#toString(double)} (they read back to
+ * the same double); a number that does not apply is an empty cell.
+ */
+public final class ResultsCsv {
+
+    /** The fixed columns before the parameters. */
+    public static final List<String> CASE_COLUMNS = List.of("case", "pair", "x", "y", "noise", "misperception",
+        "horizon", "horizon_value");
+    /** The columns after the parameters. */
+    public static final List<String> RESULT_COLUMNS = List.of("quantity", "comparison", "predicted", "observed",
+        "ci_lower", "ci_upper", "statistic", "df", "p_value", "p_adjusted", "verdict", "note");
+
+    private ResultsCsv() {
+    }
+
+    /**
+     * Writes the file atomically.
+     *
+     * @param file the target
+     * @param cases the cases (for their parameters)
+     * @param parameters the grid's parameter names, in file order
+     * @param rows the rows
+     */
+    public static void write(Path file, List<Case> cases, List<String> parameters, List<ResultRow> rows) {
+        List<String> header = new ArrayList<>(CASE_COLUMNS);
+        parameters.forEach(p -> header.add("param_" + p));
+        header.addAll(RESULT_COLUMNS);
+        AtomicFiles.writeText(file, w -> {
+            try (CSVPrinter out = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setHeader(header.toArray(String[]::new))
+                .setRecordSeparator('\n').build())) {
+                for (ResultRow r : rows) {
+                    Case c = cases.get(r.caseIndex());
+                    List<String> cells = caseCells(c, parameters);
+                    cells.add(r.quantity());
+                    cells.add(r.comparison());
+                    cells.add(num(r.predicted()));
+                    cells.add(num(r.observed()));
+                    cells.add(num(r.lower()));
+                    cells.add(num(r.upper()));
+                    cells.add(num(r.statistic()));
+                    cells.add(num(r.degreesOfFreedom()));
+                    cells.add(num(r.pValue()));
+                    cells.add(num(r.adjustedP()));
+                    cells.add(r.verdict().word());
+                    cells.add(r.note() == null ? "" : r.note());
+                    out.printRecord(cells);
+                }
+            }
+        });
+    }
+
+    static List<String> caseCells(Case c, List<String> parameters) {
+        List<String> cells = new ArrayList<>();
+        cells.add(c.id());
+        cells.add(c.pair());
+        cells.add(c.xSpec());
+        cells.add(c.ySpec());
+        cells.add(c.noise());
+        cells.add(c.misperception());
+        cells.add(c.horizon() instanceof Horizon.Rounds ? "rounds" : "continuation");
+        cells.add(c.horizon() instanceof Horizon.Rounds r ? Long.toString(r.count())
+            : Double.toString(((Horizon.Continuation) c.horizon()).probability()));
+        for (String p : parameters) {
+            Double v = c.parameters().get(p);
+            cells.add(v == null ? "" : Double.toString(v));
+        }
+        return cells;
+    }
+
+    /**
+     * Reads a results file back.
+     *
+     * @param file the file
+     * @return the rows (caseIndex is the row's position among distinct cases, in file order)
+     * @throws IllegalArgumentException if the file is not a results file
+     */
+    public static List<ResultRow> read(Path file) {
+        List<ResultRow> rows = new ArrayList<>();
+        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8);
+             CSVParser p = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).build().parse(r)) {
+            Map<String, Integer> header = p.getHeaderMap();
+            for (String col : RESULT_COLUMNS) {
+                if (!header.containsKey(col)) {
+                    throw new IllegalArgumentException(file + ": not a results file, column '" + col + "' is missing");
+                }
+            }
+            List<String> caseIds = new ArrayList<>();
+            for (CSVRecord rec : p) {
+                String id = rec.get("case");
+                if (!caseIds.contains(id)) {
+                    caseIds.add(id);
+                }
+                rows.add(new ResultRow(caseIds.indexOf(id), id, rec.get("quantity"), rec.get("comparison"),
+                    parse(rec.get("predicted")), parse(rec.get("observed")), parse(rec.get("ci_lower")),
+                    parse(rec.get("ci_upper")), parse(rec.get("statistic")), parse(rec.get("df")),
+                    parse(rec.get("p_value")), parse(rec.get("p_adjusted")), Verdict.ofWord(rec.get("verdict")),
+                    rec.get("note")));
+            }
+        } catch (IOException e) {
+            throw new IllegalArgumentException(file + ": cannot be read: " + e.getMessage(), e);
+        }
+        return rows;
+    }
+
+    static String num(double v) {
+        return Double.isNaN(v) ? "" : Double.toString(v);
+    }
+
+    static double parse(String s) {
+        return s == null || s.isEmpty() ? Double.NaN : Double.parseDouble(s);
+    }
+
+    static String label(double v) {
+        if (v == Math.rint(v) && Math.abs(v) < 1e15) {
+            return Long.toString((long) v);
+        }
+        return java.math.BigDecimal.valueOf(v).stripTrailingZeros().toPlainString();
+    }
+}
