@@ -105,6 +105,14 @@ public final class SimulationResult {
         return new SimulationResult(configuration, seed, fastPath, payoffX, payoffY, merged, sum);
     }
 
+    Accumulator accumulator() {
+        return acc;
+    }
+
+    double[] payoffVector(boolean x) {
+        return (x ? payoffX : payoffY).clone();
+    }
+
     private static Accumulator copy(Accumulator a) {
         Accumulator c = new Accumulator(a.historyMemory, a.snapshotRounds, a.timeRounds);
         c.merge(a);
