@@ -24,6 +24,9 @@ import reprise.experiment.Experiment;
 import reprise.experiment.ExperimentFile;
 import reprise.experiment.InvalidExperimentException;
 import reprise.experiment.Runner;
+import reprise.experiment.WorkPlan;
+import reprise.output.Checkpoint;
+import reprise.sim.SimulationResult;
 import reprise.output.CasesCsv;
 import reprise.output.CurvesCsv;
 import reprise.output.Plotter;
@@ -61,6 +64,10 @@ final class CheckCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress on stderr.")
     boolean quiet;
 
+    @Option(names = "--resume", description = "Continue an interrupted run in the output folder: finished units are "
+        + "kept, the rest is simulated; the results are identical to an uninterrupted run.")
+    boolean resume;
+
     /** The files a finished run writes into the output folder (besides figures/). */
     static final List<String> OUTPUTS = List.of("results.csv", "cases.csv", "curves.csv", "report.md", "run.json");
 
@@ -86,7 +93,7 @@ final class CheckCommand implements Callable<Integer> {
         if (nThreads < 1) {
             throw new IllegalArgumentException("--threads must be at least 1: " + nThreads);
         }
-        checkOutputFolder(dir, force);
+        checkOutputFolder(dir, force, resume);
         for (Case c : cases) {
             try {
                 new Simulator(Runner.spec(e, c, nThreads));
@@ -94,19 +101,57 @@ final class CheckCommand implements Callable<Integer> {
                 throw new IllegalArgumentException(file + ": case " + c.id() + ": " + ex.getMessage(), ex);
             }
         }
-        double expected = cases.stream().mapToDouble(c -> c.horizon().expectedLength()).sum() * e.replicates();
+        Checkpoint checkpoint = Checkpoint.of(dir);
+        List<WorkPlan.Unit> units = WorkPlan.units(e, cases);
+        Map<String, SimulationResult> done = new java.util.HashMap<>();
+        if (checkpoint.size() > 0 && !resume && !force) {
+            throw new IllegalArgumentException("--out: " + dir + " holds an interrupted run (" + checkpoint.size()
+                + " finished units in " + Checkpoint.FOLDER + "); use --resume to continue it or --force to start over");
+        }
+        if (resume) {
+            done.putAll(checkpoint.load(e, Main.version(), units));
+            if (!quiet) {
+                err.printf(Locale.ROOT, "reprise check: resuming, %d of %d units already done%n", done.size(),
+                    units.size());
+            }
+        } else {
+            checkpoint.delete();
+        }
+        double expected = units.stream().mapToDouble(WorkPlan.Unit::expectedRounds).sum();
         RunProgress progress = new RunProgress(err, !quiet, cases.size(), expected);
+        int[] saved = {done.size()};
+        Thread hook = new Thread(() -> err.printf(Locale.ROOT, "%nreprise check: interrupted; %d of %d units are "
+            + "saved in %s; run the same command with --resume to continue%n", saved[0], units.size(),
+            checkpoint.folder()));
+        Runtime.getRuntime().addShutdownHook(hook);
         List<CaseResult> results = new ArrayList<>();
-        for (Case c : cases) {
-            progress.startCase(c, results.size());
-            CaseResult r = Runner.runCase(e, c, nThreads, progress);
-            progress.endCase(r.simulation().roundsTotal(), c.horizon().expectedLength() * e.replicates());
-            results.add(r);
+        try {
+            for (Case c : cases) {
+                progress.startCase(c, results.size());
+                SimulationResult merged = null;
+                for (WorkPlan.Unit u : units) {
+                    if (u.caseIndex() != c.index()) {
+                        continue;
+                    }
+                    SimulationResult r = done.get(u.fileName());
+                    if (r == null) {
+                        r = Runner.runUnit(e, c, u, nThreads, progress);
+                        checkpoint.save(e, Main.version(), u, r);
+                        saved[0]++;
+                    }
+                    progress.endUnit(u.expectedRounds());
+                    merged = merged == null ? r : merged.merge(r);
+                }
+                results.add(Runner.fromSimulation(e, c, merged));
+            }
+        } finally {
+            Runtime.getRuntime().removeShutdownHook(hook);
         }
         progress.finish();
         Runner.Outcome outcome = Runner.analyse(e, results, claims);
         int code = outcome.disagrees() ? Main.DISAGREES : Main.OK;
         write(dir, e, results, outcome, start, code, nThreads);
+        checkpoint.delete();
         PrintWriter stdout = spec.commandLine().getOut();
         long bad = outcome.rows().stream().filter(r -> r.verdict() == reprise.experiment.Verdict.DISAGREES
             && !r.comparison().equals("stationary")).count();
@@ -144,17 +189,13 @@ final class CheckCommand implements Callable<Integer> {
                 .sum(), start, end, code, outputs));
     }
 
-    static void checkOutputFolder(Path dir, boolean force) {
+    static void checkOutputFolder(Path dir, boolean force, boolean resume) {
         if (Files.exists(dir) && !Files.isDirectory(dir)) {
             throw new IllegalArgumentException("--out: " + dir + " is a file, not a folder");
         }
-        if (Files.isDirectory(dir) && !force) {
-            for (String f : OUTPUTS) {
-                if (Files.exists(dir.resolve(f))) {
-                    throw new IllegalArgumentException("--out: " + dir + " holds the results of an earlier run ("
-                        + f + "); use --force to replace them, or another --out");
-                }
-            }
+        if (Files.exists(dir.resolve("run.json")) && !force) {
+            throw new IllegalArgumentException("--out: " + dir + " holds a finished run (run.json)"
+                + (resume ? ", there is nothing to resume" : "") + "; use --force to replace it, or another --out");
         }
         try {
             Files.createDirectories(dir);
@@ -209,7 +250,7 @@ final class CheckCommand implements Callable<Integer> {
             id = c.id();
         }
 
-        void endCase(long rounds, double expected) {
+        void endUnit(double expected) {
             doneBefore += expected;
         }
 
@@ -223,9 +264,7 @@ final class CheckCommand implements Callable<Integer> {
                 return;
             }
             lastDraw = now;
-            double frac = replicates == 0 ? 0 : (double) replicatesDone / replicates;
-            double expectedCase = roundsExpected;
-            double done = doneBefore + frac * expectedCase;
+            double done = doneBefore + roundsDone;
             double seconds = (now - start) / 1e9;
             double rate = done / seconds;
             double left = rate > 0 ? (expectedTotal - done) / rate : 0;

@@ -1,0 +1,102 @@
+package reprise.experiment;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * How an experiment's simulation work is cut into units: each case's replicates are split into chunks of
+ * consecutive game indexes. The cut depends only on the experiment (never on threads or machines), and
+ * since every game's random stream depends only on (case seed, game index), any set of units can be run
+ * anywhere, in any order, and merged into exactly the numbers of one uninterrupted run.
+ *
+ * <p>A case gets ceil(G E[L] / {@value #ROUNDS_PER_UNIT}) chunks (at least 1, at most G), so one unit is
+ * at most about a second of simulation on one core; games are spread evenly over the chunks.
+ */
+public final class WorkPlan {
+
+    /** The largest expected number of rounds in one unit. */
+    public static final double ROUNDS_PER_UNIT = 2e8;
+
+    private WorkPlan() {
+    }
+
+    /**
+     * One unit of work.
+     *
+     * @param caseIndex the case
+     * @param chunk the chunk number within the case, from 0
+     * @param from first game index
+     * @param to one past the last game index
+     * @param expectedRounds expected rounds played in the unit
+     */
+    public record Unit(int caseIndex, int chunk, long from, long to, double expectedRounds) {
+        /** @return a file name for the unit's tally, e.g. {@code case-00007-chunk-00003.json} */
+        public String fileName() {
+            return String.format(Locale.ROOT, "case-%05d-chunk-%05d.json", caseIndex, chunk);
+        }
+    }
+
+    /**
+     * All units of an experiment, case by case, chunk by chunk.
+     *
+     * @param e the experiment
+     * @param cases its cases
+     * @return the units
+     */
+    public static List<Unit> units(Experiment e, List<Case> cases) {
+        List<Unit> out = new ArrayList<>();
+        long g = e.replicates();
+        for (Case c : cases) {
+            double perGame = c.horizon().expectedLength();
+            long chunks = (long) Math.min(g, Math.max(1, Math.ceil(g * perGame / ROUNDS_PER_UNIT)));
+            for (int k = 0; k < chunks; k++) {
+                long from = g * k / chunks;
+                long to = g * (k + 1) / chunks;
+                out.add(new Unit(c.index(), k, from, to, (to - from) * perGame));
+            }
+        }
+        return List.copyOf(out);
+    }
+
+    /**
+     * The units of shard i of n, balanced by expected rounds: units are taken largest first (ties by
+     * position) and each goes to the shard with the least work so far (ties to the lowest shard). Every
+     * unit belongs to exactly one shard.
+     *
+     * @param units all units
+     * @param shard i, from 1 to n
+     * @param shards n, at least 1
+     * @return shard i's units, in plan order
+     */
+    public static List<Unit> shard(List<Unit> units, int shard, int shards) {
+        if (shards < 1 || shard < 1 || shard > shards) {
+            throw new IllegalArgumentException("shard must be I/N with 1 <= I <= N: " + shard + "/" + shards);
+        }
+        List<Integer> order = new ArrayList<>();
+        for (int i = 0; i < units.size(); i++) {
+            order.add(i);
+        }
+        order.sort(Comparator.<Integer>comparingDouble(i -> -units.get(i).expectedRounds()).thenComparing(i -> i));
+        double[] load = new double[shards];
+        int[] owner = new int[units.size()];
+        for (int i : order) {
+            int best = 0;
+            for (int s = 1; s < shards; s++) {
+                if (load[s] < load[best]) {
+                    best = s;
+                }
+            }
+            owner[i] = best;
+            load[best] += units.get(i).expectedRounds();
+        }
+        List<Unit> mine = new ArrayList<>();
+        for (int i = 0; i < units.size(); i++) {
+            if (owner[i] == shard - 1) {
+                mine.add(units.get(i));
+            }
+        }
+        return List.copyOf(mine);
+    }
+}
