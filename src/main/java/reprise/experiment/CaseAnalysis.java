@@ -155,7 +155,8 @@ public final class CaseAnalysis {
      * @param exact the exact side
      * @param estimate the simulated estimate
      * @param w the quantity's weights
-     * @return statistic z, df NaN (normal reference), two-sided p
+     * @return statistic z, degrees of freedom 0 (the reference is the standard normal, which has none;
+     *     {@link TestResult} allows no NaN there), two-sided p
      */
     public static TestResult zTest(Exact exact, Estimate estimate, double[] w) {
         double predicted = exact.value(w);
@@ -163,12 +164,13 @@ public final class CaseAnalysis {
         double d = estimate.value() - predicted;
         if (!(se > 0)) {
             boolean same = Math.abs(d) <= 1e-12 * Math.max(1, Math.abs(predicted));
-            return new TestResult(same ? 0 : Double.POSITIVE_INFINITY, Double.NaN, same ? 1 : 0,
+            return new TestResult(same ? 0 : Double.POSITIVE_INFINITY, 0, same ? 1 : 0,
                 same ? "no variance under the model, and none observed" : "the model allows no variation here, "
                     + "but the simulation differs");
         }
         double z = d / se;
-        return new TestResult(z, Double.NaN, Math.min(1, 2 * NORMAL.survivalProbability(Math.abs(z))), "");
+        return new TestResult(z, 0, Math.min(1, 2 * NORMAL.survivalProbability(Math.abs(z))),
+            "two-sided normal z, exact standard error");
     }
 
     /**
