@@ -17,7 +17,8 @@ import picocli.CommandLine.IVersionProvider;
     versionProvider = Main.Version.class,
     description = {"Checks exact Markov-chain results for repeated 2x2 games against finite, noisy simulations.",
         "Data goes to stdout, messages to stderr."},
-    subcommands = {SolveCommand.class, SimulateCommand.class, CommandLine.HelpCommand.class},
+    subcommands = {SolveCommand.class, SimulateCommand.class, CalibrateCommand.class, PlanCommand.class,
+        CommandLine.HelpCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {"0:ok, every comparison agrees", "1:a comparison disagrees",
         "2:bad input or usage", "3:internal error"})

@@ -54,6 +54,9 @@ public final class CalibrationStudy {
     /** The quantities with a z test in every repetition: the four state frequencies and both payoffs. */
     public static final List<String> Z_QUANTITIES = List.of("CC", "CD", "DC", "DD", "payoff_x", "payoff_y");
 
+    /** A state expected fewer times than this over one repetition's games gets a warning. */
+    public static final double SPARSE_STATE_COUNT = 20;
+
     private static final long GOLDEN = 0x9E3779B97F4A7C15L;
     private static final double INTERVAL_CONFIDENCE = 0.95;
 
@@ -166,24 +169,38 @@ public final class CalibrationStudy {
      *
      * @param name the test's name, as in {@link CaseAnalysis#tests} ("z CC", ...) or {@link #POOLED_NAME}
      * @param illustration true for the pooled-rounds illustration, which is not a valid test
-     * @param pValues the p-value of each repetition in which the test applied, in repetition order
+     * @param repetitionIndexes the 0-based repetitions in which the test applied (all K, except for a
+     *     snapshot round that no game of a repetition reached), increasing
+     * @param pValues the p-value of each of those repetitions, same order
      * @param summary rejections at alpha, their rate with a 95% Wilson interval, the binomial check and
      *     the Kolmogorov-Smirnov uniformity p-value of {@code pValues}
      * @param note the test's note in the first repetition (method, dropped components), may be empty
      */
-    public record TestCalibration(String name, boolean illustration, double[] pValues, Calibration.Summary summary,
-        String note) {
+    public record TestCalibration(String name, boolean illustration, int[] repetitionIndexes, double[] pValues,
+        Calibration.Summary summary, String note) {
         /**
-         * Copies the p-values.
+         * Copies the arrays.
          *
          * @param name name
          * @param illustration flag
+         * @param repetitionIndexes repetitions
          * @param pValues p-values
          * @param summary summary
          * @param note note
          */
         public TestCalibration {
+            repetitionIndexes = repetitionIndexes.clone();
             pValues = pValues.clone();
+            if (repetitionIndexes.length != pValues.length) {
+                throw new IllegalArgumentException("one repetition index per p-value needed: "
+                    + repetitionIndexes.length + " for " + pValues.length);
+            }
+        }
+
+        /** @return the repetitions (a copy) */
+        @Override
+        public int[] repetitionIndexes() {
+            return repetitionIndexes.clone();
         }
 
         /** @return the p-values (a copy) */
@@ -202,10 +219,12 @@ public final class CalibrationStudy {
      *     or not (rates are power)
      * @param tests one entry per test, in the order the tests first appeared
      * @param transitionsNote why there are no transition tests, or null
+     * @param warnings one line per state whose expected tallied count over one repetition's games is
+     *     below {@link #SPARSE_STATE_COUNT}: tests that involve it rest on a poor normal approximation
      * @param roundsTotal tallied rounds over all repetitions
      */
     public record Result(int repetitions, double alpha, boolean trueModel, List<TestCalibration> tests,
-        String transitionsNote, long roundsTotal) {
+        String transitionsNote, List<String> warnings, long roundsTotal) {
         /**
          * Copies the list.
          *
@@ -214,10 +233,12 @@ public final class CalibrationStudy {
          * @param trueModel flag
          * @param tests tests
          * @param transitionsNote or null
+         * @param warnings warnings
          * @param roundsTotal rounds
          */
         public Result {
             tests = List.copyOf(tests);
+            warnings = List.copyOf(warnings);
         }
     }
 
@@ -244,22 +265,40 @@ public final class CalibrationStudy {
         new Simulator(one);
         Repetition[] perRepetition = runAll(one, exact, weights, listener);
         Map<String, List<Double>> pValues = new LinkedHashMap<>();
+        Map<String, List<Integer>> indexes = new LinkedHashMap<>();
         Map<String, String> notes = new LinkedHashMap<>();
         long rounds = 0;
-        for (Repetition rep : perRepetition) {
-            rounds += rep.rounds();
-            for (CaseAnalysis.Named t : rep.tests()) {
+        for (int k = 0; k < perRepetition.length; k++) {
+            rounds += perRepetition[k].rounds();
+            for (CaseAnalysis.Named t : perRepetition[k].tests()) {
                 pValues.computeIfAbsent(t.name(), n -> new ArrayList<>()).add(t.result().pValue());
+                indexes.computeIfAbsent(t.name(), n -> new ArrayList<>()).add(k);
                 notes.putIfAbsent(t.name(), t.result().note());
             }
         }
         List<TestCalibration> out = new ArrayList<>();
         for (Map.Entry<String, List<Double>> e : pValues.entrySet()) {
             double[] p = e.getValue().stream().mapToDouble(Double::doubleValue).toArray();
-            out.add(new TestCalibration(e.getKey(), e.getKey().equals(POOLED_NAME), p,
+            int[] ks = indexes.get(e.getKey()).stream().mapToInt(Integer::intValue).toArray();
+            out.add(new TestCalibration(e.getKey(), e.getKey().equals(POOLED_NAME), ks, p,
                 Calibration.summarize(p, alpha, INTERVAL_CONFIDENCE), notes.get(e.getKey())));
         }
-        return new Result(repetitions, alpha, trueModel(), out, exact.transitionsNote(), rounds);
+        return new Result(repetitions, alpha, trueModel(), out, exact.transitionsNote(), warnings(exact), rounds);
+    }
+
+    private List<String> warnings(CaseAnalysis.Exact exact) {
+        List<String> w = new ArrayList<>();
+        double[] mean = exact.moments().mean();
+        String[] names = {"CC", "CD", "DC", "DD"};
+        for (int s = 0; s < 4; s++) {
+            double expected = mean[s] * simulation.replicates();
+            if (expected > 0 && expected < SPARSE_STATE_COUNT) {
+                w.add(String.format(java.util.Locale.ROOT, "state %s: expected %.3g tallied rounds per repetition "
+                    + "(below %d); its z test and the frequency test rest on a poor normal approximation, use more "
+                    + "games", names[s], expected, (int) SPARSE_STATE_COUNT));
+            }
+        }
+        return w;
     }
 
     private record Repetition(List<CaseAnalysis.Named> tests, long rounds) {
