@@ -1,0 +1,385 @@
+package reprise.experiment;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import reprise.chain.NoPredictionException;
+import reprise.game.Horizon;
+import reprise.game.Match;
+import reprise.sim.ProgressListener;
+import reprise.sim.SimulationResult;
+import reprise.sim.SimulationSpec;
+import reprise.sim.Simulator;
+import reprise.stats.Calibration;
+import reprise.stats.PooledRoundsIllustration;
+
+/**
+ * Repeats one simulation K times with independent seeds, tests every repetition against the exact
+ * prediction with {@link CaseAnalysis#tests}, and summarises each test's K p-values with
+ * {@link Calibration#summarize}: the false-alarm rate when the prediction assumes the true model, the
+ * power when it deliberately assumes a wrong one (another noise level, another horizon).
+ *
+ * <p>Tests per repetition: every test {@link CaseAnalysis#tests} applies (frequencies (Wald),
+ * transitions (Pearson) and (LR) when the true history is a Markov chain, one snapshot test per
+ * requested round), the z tests of the four state frequencies and both payoffs ({@link #Z_QUANTITIES}),
+ * and the pooled-rounds chi-square of {@link PooledRoundsIllustration}, named {@link #POOLED_NAME} and
+ * flagged {@code illustration}: it treats autocorrelated rounds as independent and is expected to be
+ * miscalibrated.
+ *
+ * <p>Seeds: repetition k (0-based) runs the simulation with master seed
+ * {@code mix64(seed + (k + 1) * 0x9E3779B97F4A7C15)}, the (k + 1)-th output of SplitMix64 started at
+ * state {@code seed} ({@link #repetitionSeed}); within it game i's stream depends on that master seed
+ * and i only (see {@link Simulator#replicateGenerator}). Repetitions are independent and each is run on
+ * one thread, so the result is the same for any number of threads.
+ *
+ * <p>References:
+ * <ul>
+ *   <li>Steele, G.L., Lea, D. &amp; Flood, C.H. (2014). Fast splittable pseudorandom number generators.
+ *       OOPSLA 2014, ACM SIGPLAN Notices 49(10), 453-472 (SplitMix64).</li>
+ *   <li>Anderson, T.W. &amp; Goodman, L.A. (1957). Statistical inference about Markov chains. Annals of
+ *       Mathematical Statistics 28(1), 89-110.</li>
+ * </ul>
+ */
+public final class CalibrationStudy {
+
+    /** The name of the pooled-rounds illustration in the results. */
+    public static final String POOLED_NAME = "pooled rounds chi-square (ILLUSTRATION, invalid)";
+
+    /** The quantities with a z test in every repetition: the four state frequencies and both payoffs. */
+    public static final List<String> Z_QUANTITIES = List.of("CC", "CD", "DC", "DD", "payoff_x", "payoff_y");
+
+    /** A state expected fewer times than this over one repetition's games gets a warning. */
+    public static final double SPARSE_STATE_COUNT = 20;
+
+    private static final long GOLDEN = 0x9E3779B97F4A7C15L;
+    private static final double INTERVAL_CONFIDENCE = 0.95;
+
+    private final SimulationSpec simulation;
+    private final Match predictedMatch;
+    private final Horizon predictedHorizon;
+    private final int repetitions;
+    private final double alpha;
+
+    private CalibrationStudy(SimulationSpec simulation, Match predictedMatch, Horizon predictedHorizon,
+        int repetitions, double alpha) {
+        this.simulation = simulation;
+        this.predictedMatch = predictedMatch;
+        this.predictedHorizon = predictedHorizon;
+        this.repetitions = repetitions;
+        this.alpha = alpha;
+    }
+
+    /**
+     * A study of a true-model prediction with K = 200 repetitions at alpha = 0.05.
+     *
+     * @param simulation the simulation of one repetition (its seed is the study's master seed; its thread
+     *     count is the number of repetitions run at once); at least 2 replicates
+     * @return the study
+     */
+    public static CalibrationStudy of(SimulationSpec simulation) {
+        Objects.requireNonNull(simulation, "simulation");
+        if (simulation.replicates() < 2) {
+            throw new IllegalArgumentException("calibration needs at least 2 replicates per repetition (the z "
+                + "tests estimate a standard error): " + simulation.replicates());
+        }
+        return new CalibrationStudy(simulation, simulation.match(), simulation.horizon(), 200, 0.05);
+    }
+
+    /**
+     * @param k the number of repetitions K, at least 1
+     * @return a copy with K repetitions
+     */
+    public CalibrationStudy withRepetitions(int k) {
+        if (k < 1) {
+            throw new IllegalArgumentException("repetitions must be at least 1: " + k);
+        }
+        return new CalibrationStudy(simulation, predictedMatch, predictedHorizon, k, alpha);
+    }
+
+    /**
+     * @param a the nominal level in (0, 1)
+     * @return a copy with this level
+     */
+    public CalibrationStudy withAlpha(double a) {
+        if (!(a > 0 && a < 1)) {
+            throw new IllegalArgumentException("alpha must be in (0, 1): " + a);
+        }
+        return new CalibrationStudy(simulation, predictedMatch, predictedHorizon, repetitions, a);
+    }
+
+    /**
+     * The model the exact side predicts under; by default the simulated one. A different one (another
+     * noise level, another horizon) makes the rejection rates measure power.
+     *
+     * @param match the match the prediction assumes
+     * @param horizon the horizon it assumes
+     * @return a copy
+     */
+    public CalibrationStudy withPrediction(Match match, Horizon horizon) {
+        Objects.requireNonNull(match, "predicted match");
+        Objects.requireNonNull(horizon, "predicted horizon");
+        if (horizon instanceof Horizon.Rounds r && simulation.burnIn() >= r.count()) {
+            throw new IllegalArgumentException("burn-in must be shorter than the predicted game (" + r.count()
+                + " rounds): " + simulation.burnIn());
+        }
+        return new CalibrationStudy(simulation, match, horizon, repetitions, alpha);
+    }
+
+    /** @return K */
+    public int repetitions() {
+        return repetitions;
+    }
+
+    /** @return alpha */
+    public double alpha() {
+        return alpha;
+    }
+
+    /** @return whether the prediction assumes exactly the simulated match and horizon */
+    public boolean trueModel() {
+        return predictedMatch.equals(simulation.match()) && predictedHorizon.equals(simulation.horizon());
+    }
+
+    /**
+     * The master seed of repetition k: mix64(seed + (k + 1) G), G = 0x9E3779B97F4A7C15, mix64 the
+     * SplitMix64 output function (Steele, Lea &amp; Flood 2014).
+     *
+     * @param seed the study's master seed
+     * @param k the repetition, at least 0
+     * @return the seed of that repetition's simulation
+     */
+    public static long repetitionSeed(long seed, long k) {
+        if (k < 0) {
+            throw new IllegalArgumentException("repetition index must be at least 0: " + k);
+        }
+        long z = seed + (k + 1) * GOLDEN;
+        z = (z ^ (z >>> 30)) * 0xBF58476D1CE4E5B9L;
+        z = (z ^ (z >>> 27)) * 0x94D049BB133111EBL;
+        return z ^ (z >>> 31);
+    }
+
+    /**
+     * One test's calibration over the repetitions.
+     *
+     * @param name the test's name, as in {@link CaseAnalysis#tests} ("z CC", ...) or {@link #POOLED_NAME}
+     * @param illustration true for the pooled-rounds illustration, which is not a valid test
+     * @param repetitionIndexes the 0-based repetitions in which the test applied (all K, except for a
+     *     snapshot round that no game of a repetition reached), increasing
+     * @param pValues the p-value of each of those repetitions, same order
+     * @param summary rejections at alpha, their rate with a 95% Wilson interval, the binomial check and
+     *     the Kolmogorov-Smirnov uniformity p-value of {@code pValues}
+     * @param note the test's note in the first repetition (method, dropped components), may be empty
+     */
+    public record TestCalibration(String name, boolean illustration, int[] repetitionIndexes, double[] pValues,
+        Calibration.Summary summary, String note) {
+        /**
+         * Copies the arrays.
+         *
+         * @param name name
+         * @param illustration flag
+         * @param repetitionIndexes repetitions
+         * @param pValues p-values
+         * @param summary summary
+         * @param note note
+         */
+        public TestCalibration {
+            repetitionIndexes = repetitionIndexes.clone();
+            pValues = pValues.clone();
+            if (repetitionIndexes.length != pValues.length) {
+                throw new IllegalArgumentException("one repetition index per p-value needed: "
+                    + repetitionIndexes.length + " for " + pValues.length);
+            }
+        }
+
+        /** @return the repetitions (a copy) */
+        @Override
+        public int[] repetitionIndexes() {
+            return repetitionIndexes.clone();
+        }
+
+        /** @return the p-values (a copy) */
+        @Override
+        public double[] pValues() {
+            return pValues.clone();
+        }
+    }
+
+    /**
+     * The study's result.
+     *
+     * @param repetitions K
+     * @param alpha the level
+     * @param trueModel whether the prediction assumed the simulated model (rates are false-alarm rates)
+     *     or not (rates are power)
+     * @param tests one entry per test, in the order the tests first appeared
+     * @param transitionsNote why there are no transition tests, or null
+     * @param warnings one line per state whose expected tallied count over one repetition's games is
+     *     below {@link #SPARSE_STATE_COUNT}: tests that involve it rest on a poor normal approximation
+     * @param roundsTotal tallied rounds over all repetitions
+     */
+    public record Result(int repetitions, double alpha, boolean trueModel, List<TestCalibration> tests,
+        String transitionsNote, List<String> warnings, long roundsTotal) {
+        /**
+         * Copies the list.
+         *
+         * @param repetitions K
+         * @param alpha alpha
+         * @param trueModel flag
+         * @param tests tests
+         * @param transitionsNote or null
+         * @param warnings warnings
+         * @param roundsTotal rounds
+         */
+        public Result {
+            tests = List.copyOf(tests);
+            warnings = List.copyOf(warnings);
+        }
+    }
+
+    /**
+     * Runs the study.
+     *
+     * @param listener progress over all repetitions (games done of K G), or null
+     * @return the result
+     * @throws NoPredictionException when the predicted match has no exact chain (nothing to calibrate
+     *     against)
+     */
+    public Result run(ProgressListener listener) {
+        CaseAnalysis.Exact exact;
+        try {
+            exact = CaseAnalysis.exact(predictedMatch, predictedHorizon, simulation.burnIn());
+        } catch (NoPredictionException e) {
+            throw new NoPredictionException("nothing to calibrate against: " + e.getMessage());
+        }
+        Map<String, double[]> weights = new LinkedHashMap<>();
+        for (String q : Z_QUANTITIES) {
+            weights.put(q, Quantities.weights(q, predictedMatch.game()));
+        }
+        SimulationSpec one = simulation.withThreads(1);
+        new Simulator(one);
+        Repetition[] perRepetition = runAll(one, exact, weights, listener);
+        Map<String, List<Double>> pValues = new LinkedHashMap<>();
+        Map<String, List<Integer>> indexes = new LinkedHashMap<>();
+        Map<String, String> notes = new LinkedHashMap<>();
+        long rounds = 0;
+        for (int k = 0; k < perRepetition.length; k++) {
+            rounds += perRepetition[k].rounds();
+            for (CaseAnalysis.Named t : perRepetition[k].tests()) {
+                pValues.computeIfAbsent(t.name(), n -> new ArrayList<>()).add(t.result().pValue());
+                indexes.computeIfAbsent(t.name(), n -> new ArrayList<>()).add(k);
+                notes.putIfAbsent(t.name(), t.result().note());
+            }
+        }
+        List<TestCalibration> out = new ArrayList<>();
+        for (Map.Entry<String, List<Double>> e : pValues.entrySet()) {
+            double[] p = e.getValue().stream().mapToDouble(Double::doubleValue).toArray();
+            int[] ks = indexes.get(e.getKey()).stream().mapToInt(Integer::intValue).toArray();
+            out.add(new TestCalibration(e.getKey(), e.getKey().equals(POOLED_NAME), ks, p,
+                Calibration.summarize(p, alpha, INTERVAL_CONFIDENCE), notes.get(e.getKey())));
+        }
+        return new Result(repetitions, alpha, trueModel(), out, exact.transitionsNote(), warnings(exact), rounds);
+    }
+
+    private List<String> warnings(CaseAnalysis.Exact exact) {
+        List<String> w = new ArrayList<>();
+        double[] mean = exact.moments().mean();
+        String[] names = {"CC", "CD", "DC", "DD"};
+        for (int s = 0; s < 4; s++) {
+            double expected = mean[s] * simulation.replicates();
+            if (expected > 0 && expected < SPARSE_STATE_COUNT) {
+                w.add(String.format(java.util.Locale.ROOT, "state %s: expected %.3g tallied rounds per repetition "
+                    + "(below %d); its z test and the frequency test rest on a poor normal approximation, use more "
+                    + "games", names[s], expected, (int) SPARSE_STATE_COUNT));
+            }
+        }
+        return w;
+    }
+
+    private record Repetition(List<CaseAnalysis.Named> tests, long rounds) {
+    }
+
+    private Repetition[] runAll(SimulationSpec one, CaseAnalysis.Exact exact,
+        Map<String, double[]> weights, ProgressListener listener) {
+        Repetition[] results = new Repetition[repetitions];
+        Progress progress = new Progress(listener, repetitions, one);
+        int workers = Math.min(simulation.threads(), repetitions);
+        if (workers == 1) {
+            for (int k = 0; k < repetitions; k++) {
+                results[k] = repetition(one, exact, weights, k, progress);
+            }
+            return results;
+        }
+        ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
+            Thread t = new Thread(r, "reprise-calibrate");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            List<Future<Repetition>> futures = new ArrayList<>();
+            for (int k = 0; k < repetitions; k++) {
+                int rep = k;
+                futures.add(pool.submit(() -> repetition(one, exact, weights, rep, progress)));
+            }
+            for (int k = 0; k < repetitions; k++) {
+                results[k] = futures.get(k).get();
+            }
+            return results;
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("calibration interrupted", e);
+        } catch (ExecutionException e) {
+            Throwable c = e.getCause();
+            if (c instanceof RuntimeException re) {
+                throw re;
+            }
+            if (c instanceof Error err) {
+                throw err;
+            }
+            throw new IllegalStateException("calibration failed: " + c, c);
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    private Repetition repetition(SimulationSpec one, CaseAnalysis.Exact exact,
+        Map<String, double[]> weights, int k, Progress progress) {
+        SimulationResult r = new Simulator(one.withSeed(repetitionSeed(simulation.seed(), k))).run();
+        List<CaseAnalysis.Named> tests = new ArrayList<>(CaseAnalysis.tests(exact, r, weights));
+        tests.add(new CaseAnalysis.Named(POOLED_NAME, PooledRoundsIllustration.misleadingTest(r.stateCounts(),
+            exact.frequencies())));
+        progress.done(r.lengthSum());
+        return new Repetition(tests, r.roundsTotal());
+    }
+
+    /** Serialised progress over repetitions. */
+    private static final class Progress {
+        private final ProgressListener listener;
+        private final long games;
+        private final long roundsExpected;
+        private final long gamesPerRepetition;
+        private long repetitionsDone;
+        private long roundsDone;
+
+        Progress(ProgressListener listener, int repetitions, SimulationSpec one) {
+            this.listener = listener;
+            this.gamesPerRepetition = one.replicates();
+            this.games = repetitions * one.replicates();
+            double e = (double) games * one.horizon().expectedLength();
+            this.roundsExpected = e >= 0x1p63 ? Long.MAX_VALUE : (long) e;
+        }
+
+        synchronized void done(long rounds) {
+            repetitionsDone++;
+            roundsDone += rounds;
+            if (listener != null) {
+                listener.progress(repetitionsDone * gamesPerRepetition, games, roundsDone, roundsExpected);
+            }
+        }
+    }
+}
