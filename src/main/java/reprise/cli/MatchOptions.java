@@ -1,6 +1,5 @@
 package reprise.cli;
 
-import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Option;
 import reprise.game.Horizon;
 import reprise.game.Match;
@@ -35,18 +34,12 @@ final class MatchOptions {
             + "X's,Y's. Default: ${DEFAULT-VALUE}.")
     String misperception;
 
-    @ArgGroup(exclusive = true, multiplicity = "0..1")
-    HorizonOptions horizon;
+    @Option(names = "--rounds", paramLabel = "N", description = "Fixed number of rounds per game (at least 1).")
+    Long rounds;
 
-    /** The two ways to give a game's length. */
-    static final class HorizonOptions {
-        @Option(names = "--rounds", paramLabel = "N", description = "Fixed number of rounds per game (at least 1).")
-        Long rounds;
-
-        @Option(names = "--continuation", paramLabel = "DELTA",
-            description = "Random length: after each round another follows with probability DELTA in [0, 1).")
-        Double continuation;
-    }
+    @Option(names = "--continuation", paramLabel = "DELTA",
+        description = "Random length: after each round another follows with probability DELTA in [0, 1).")
+    Double continuation;
 
     StageGame stageGame() {
         try {
@@ -66,16 +59,19 @@ final class MatchOptions {
 
     /** @return the horizon given, or null when none was */
     Horizon horizonOrNull() {
-        if (horizon == null) {
+        if (rounds != null && continuation != null) {
+            throw new IllegalArgumentException("give --rounds or --continuation, not both");
+        }
+        if (rounds != null) {
+            if (rounds < 1) {
+                throw new IllegalArgumentException("--rounds must be at least 1: " + rounds);
+            }
+            return Horizon.rounds(rounds);
+        }
+        if (continuation == null) {
             return null;
         }
-        if (horizon.rounds != null) {
-            if (horizon.rounds < 1) {
-                throw new IllegalArgumentException("--rounds must be at least 1: " + horizon.rounds);
-            }
-            return Horizon.rounds(horizon.rounds);
-        }
-        double d = horizon.continuation;
+        double d = continuation;
         if (!(d >= 0 && d < 1)) {
             throw new IllegalArgumentException("--continuation must be a probability in [0, 1): " + d);
         }
