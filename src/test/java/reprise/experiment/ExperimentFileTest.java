@@ -85,6 +85,23 @@ class ExperimentFileTest {
         assertEquals("extort:chi=2,phi=0.1,delta=0.9", c.xSpec());
     }
 
+    @Test
+    void theReadmeExamplesAreValid() throws IOException {
+        String readme = Files.readString(Path.of("README.md"));
+        java.util.regex.Matcher yaml = java.util.regex.Pattern.compile("```yaml\n(.*?)```", java.util.regex.Pattern.DOTALL)
+            .matcher(readme);
+        java.util.regex.Matcher csv = java.util.regex.Pattern.compile("```csv\n(.*?)```", java.util.regex.Pattern.DOTALL)
+            .matcher(readme);
+        assertTrue(yaml.find() && csv.find(), "README shows an experiment file and a claims file");
+        write("length-claims.csv", csv.group(1));
+        Experiment e = ExperimentFile.read(write("length-study.yaml", yaml.group(1)));
+        List<Case> cases = e.cases();
+        assertEquals(18, cases.size());
+        Map<Integer, Map<String, Claims.Claim>> claims = Claims.read(e.claims(), e, cases);
+        assertEquals(0.60349, claims.get(2).get("coop_x").value());
+        assertEquals(6, claims.values().stream().filter(m -> m.containsKey("payoff_x")).count());
+    }
+
     static Stream<Arguments> badFiles() {
         return Stream.of(
             Arguments.of("experiment: x\npairs: [\n", "syntax: not valid YAML"),
