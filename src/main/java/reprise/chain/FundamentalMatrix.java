@@ -99,14 +99,21 @@ public final class FundamentalMatrix {
      * c_ab = lim (1/n) Cov(N_a(n), N_b(n)) for a, b in CC, CD, DC, DD.
      *
      * @param chain the chain
-     * @return 4x4, or null when the stationary distribution is not unique
+     * @return 4x4, or null when the stationary distribution is not unique (or so nearly not unique that
+     *     the fundamental matrix is numerically singular)
      */
     public static double[][] roundStateCovariance(MarkovChain chain) {
         double[] pi = chain.structure().stationary();
         if (pi == null) {
             return null;
         }
-        double[][] c = occupationCovariance(chain.matrix(), pi);
+        double[][] c;
+        try {
+            c = occupationCovariance(chain.matrix(), pi);
+        } catch (org.apache.commons.math3.linear.SingularMatrixException e) {
+            // I - M + 1 pi is singular in floating point only when the chain is reducible up to rounding
+            return null;
+        }
         int[] r = chain.roundStates();
         double[][] out = new double[State.COUNT][State.COUNT];
         for (int i = 0; i < c.length; i++) {

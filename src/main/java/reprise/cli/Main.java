@@ -74,7 +74,8 @@ public final class Main implements Runnable {
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             PrintWriter err = commandLine.getErr();
-            if (ex instanceof IllegalArgumentException) {
+            if (ex instanceof IllegalArgumentException
+                && !(ex instanceof org.apache.commons.math3.exception.MathIllegalArgumentException)) {
                 err.println("reprise " + commandLine.getCommandName() + ": " + ex.getMessage());
                 return BAD_INPUT;
             }

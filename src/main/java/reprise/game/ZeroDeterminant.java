@@ -164,7 +164,9 @@ public final class ZeroDeterminant {
         double[] p = new double[4];
         for (int i = 0; i < 4; i++) {
             double v = ((i < 2 ? 1 : 0) - (1 - delta) * p0 + usePhi * bracket[i]) / delta;
-            p[i] = Math.min(1, Math.max(0, v));
+            // exact 0 and 1 come out of the formula up to rounding; snap them, so that a deterministic
+            // entry stays deterministic (otherwise a 1e-17 transition makes a reducible chain look ergodic)
+            p[i] = v < SLACK ? 0 : v > 1 - SLACK ? 1 : v;
         }
         return MemoryStrategy.memoryOne(label, p, p0);
     }

@@ -50,6 +50,8 @@ record FigureStyle(int width, int height, int dpi) {
         s.setAxisTitlePadding(8);
         s.setAxisTickPadding(5);
         s.setAxisTickMarkLength(5);
+        s.setXAxisTickMarkSpacingHint(110);
+        s.setYAxisTickMarkSpacingHint(90);
         s.setLegendFont(Plot.font(LEGEND_SIZE));
         s.setLegendBackgroundColor(Color.WHITE);
         s.setLegendBorderColor(Color.WHITE);
