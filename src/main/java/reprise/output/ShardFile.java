@@ -147,8 +147,11 @@ public final class ShardFile {
         JsonNode o;
         try {
             o = MAPPER.readTree(file.toFile());
+        } catch (com.fasterxml.jackson.core.JsonProcessingException ex) {
+            throw new IllegalArgumentException(file + ": cannot be read as a shard file: "
+                + ex.getOriginalMessage().replaceAll("\\s*\\R\\s*", " "), ex);
         } catch (IOException ex) {
-            throw new IllegalArgumentException(file + ": cannot be read as a shard file: " + ex.getMessage(), ex);
+            throw new IllegalArgumentException(file + ": cannot be read: " + ex.getMessage(), ex);
         }
         if (o == null || !FORMAT.equals(o.path("format").asText())) {
             throw new IllegalArgumentException(file + ": not a " + FORMAT + " shard file (format: "
