@@ -5,7 +5,6 @@ import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -19,7 +18,6 @@ import picocli.CommandLine.Model.CommandSpec;
 import reprise.experiment.Case;
 import reprise.experiment.CaseResult;
 import reprise.experiment.Claims;
-import reprise.experiment.Curves;
 import reprise.experiment.Experiment;
 import reprise.experiment.ExperimentFile;
 import reprise.experiment.InvalidExperimentException;
@@ -27,12 +25,6 @@ import reprise.experiment.Runner;
 import reprise.experiment.WorkPlan;
 import reprise.output.Checkpoint;
 import reprise.sim.SimulationResult;
-import reprise.output.CasesCsv;
-import reprise.output.CurvesCsv;
-import reprise.output.Plotter;
-import reprise.output.Provenance;
-import reprise.output.Report;
-import reprise.output.ResultsCsv;
 import reprise.sim.ProgressListener;
 import reprise.sim.Simulator;
 
@@ -68,11 +60,24 @@ final class CheckCommand implements Callable<Integer> {
         + "kept, the rest is simulated; the results are identical to an uninterrupted run.")
     boolean resume;
 
+    @Option(names = "--shard", arity = "0..1", fallbackValue = Shards.FROM_SLURM, paramLabel = "I/N",
+        description = "Run only shard I of N (I from 1) and write its tallies to DIR/shards/shard-I-of-N.json, "
+            + "for a later merge. Without I/N (or with 'slurm'): I = SLURM_ARRAY_TASK_ID and N = "
+            + "SLURM_ARRAY_TASK_COUNT of an array submitted as --array=1-N.")
+    String shard;
+
+    @Option(names = "--merge", paramLabel = "DIR", description = "Merge the shard files in DIR/shards into the "
+        + "results of an unsharded run of FILE, written into DIR (or --out).")
+    Path merge;
+
     /** The files a finished run writes into the output folder (besides figures/). */
     static final List<String> OUTPUTS = List.of("results.csv", "cases.csv", "curves.csv", "report.md", "run.json");
 
     @Override
     public Integer call() {
+        if (shard != null || merge != null) {
+            return Shards.fromCheck(this);
+        }
         PrintWriter err = spec.commandLine().getErr();
         Instant start = Instant.now();
         Experiment e;
@@ -124,69 +129,28 @@ final class CheckCommand implements Callable<Integer> {
             + "saved in %s; run the same command with --resume to continue%n", saved[0], units.size(),
             checkpoint.folder()));
         Runtime.getRuntime().addShutdownHook(hook);
-        List<CaseResult> results = new ArrayList<>();
+        List<CaseResult> results;
         try {
-            for (Case c : cases) {
-                progress.startCase(c, results.size());
-                SimulationResult merged = null;
-                for (WorkPlan.Unit u : units) {
-                    if (u.caseIndex() != c.index()) {
-                        continue;
-                    }
-                    SimulationResult r = done.get(u.fileName());
-                    if (r == null) {
-                        r = Runner.runUnit(e, c, u, nThreads, progress);
-                        checkpoint.save(e, Main.version(), u, r);
-                        saved[0]++;
-                    }
-                    progress.endUnit(u.expectedRounds());
-                    merged = merged == null ? r : merged.merge(r);
+            results = RunOutputs.byCase(e, cases, units, (c, u) -> {
+                SimulationResult r = done.get(u.fileName());
+                if (r == null) {
+                    r = Runner.runUnit(e, c, u, nThreads, progress);
+                    checkpoint.save(e, Main.version(), u, r);
+                    saved[0]++;
                 }
-                results.add(Runner.fromSimulation(e, c, merged));
-            }
+                return r;
+            }, progress);
         } finally {
             Runtime.getRuntime().removeShutdownHook(hook);
         }
         progress.finish();
         Runner.Outcome outcome = Runner.analyse(e, results, claims);
         int code = outcome.disagrees() ? Main.DISAGREES : Main.OK;
-        write(dir, e, results, outcome, start, code, nThreads);
+        RunOutputs.write(dir, file, spec.commandLine().getParseResult().originalArgs(), e, results, outcome, start, code,
+            nThreads);
         checkpoint.delete();
-        PrintWriter stdout = spec.commandLine().getOut();
-        long bad = outcome.rows().stream().filter(r -> r.verdict() == reprise.experiment.Verdict.DISAGREES
-            && !r.comparison().equals("stationary")).count();
-        stdout.printf(Locale.ROOT, "%s: %d cases, %d comparisons, %s; results in %s%n", e.name(), cases.size(),
-            outcome.rows().size(), bad == 0 ? "no disagreement" : bad + " disagree", dir);
-        outcome.rows().stream().filter(r -> r.verdict() == reprise.experiment.Verdict.DISAGREES
-            && !r.comparison().equals("stationary")).forEach(r -> stdout.printf(Locale.ROOT,
-            "  disagrees: %s %s (%s): predicted %s, observed %s%n", r.caseId(), r.quantity(), r.comparison(),
-            Double.isNaN(r.predicted()) ? "-" : String.format(Locale.ROOT, "%.6g", r.predicted()),
-            Double.isNaN(r.observed()) ? "-" : String.format(Locale.ROOT, "%.6g", r.observed())));
+        RunOutputs.summary(spec.commandLine().getOut(), e, cases.size(), outcome, dir);
         return code;
-    }
-
-    private void write(Path dir, Experiment e, List<CaseResult> results, Runner.Outcome outcome, Instant start, int code,
-        int nThreads) {
-        List<String> params = List.copyOf(e.parameters().keySet());
-        List<Case> cases = results.stream().map(CaseResult::c).toList();
-        List<Curves.Point> points = Curves.of(e, results, outcome.rows(), 1 - e.alpha());
-        CurvesCsv.write(dir.resolve("curves.csv"), points);
-        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"));
-        ResultsCsv.write(dir.resolve("results.csv"), cases, params, outcome.rows());
-        CasesCsv.write(dir.resolve("cases.csv"), params, results);
-        Instant end = Instant.now();
-        Report.write(dir.resolve("report.md"), new Report.Content(e, results, outcome, drawn, Main.version(),
-            Simulator.GENERATOR, start, end));
-        List<String> outputs = new ArrayList<>(OUTPUTS);
-        for (Plotter.Drawn d : drawn) {
-            d.result().files().forEach(f -> outputs.add(dir.toAbsolutePath().relativize(f.toAbsolutePath()).toString()));
-        }
-        Provenance.write(dir.resolve("run.json"), new Provenance.Run(Main.version(),
-            List.copyOf(spec.commandLine().getParseResult().originalArgs()), file, e.sha256(), e.claims(),
-            e.claims() == null ? null : sha256(e.claims()), e.seed(), Simulator.GENERATOR,
-            "case i: SplitMix64(seed + (i+1) * 0x9E3779B97F4A7C15); game g of a case: the simulator's stream for "
-                + "(case seed, g)", nThreads, results.size(), results.stream().mapToLong(r -> r.simulation().roundsTotal())
-                .sum(), start, end, code, outputs));
     }
 
     static void checkOutputFolder(Path dir, boolean force, boolean resume) {
@@ -212,15 +176,6 @@ final class CheckCommand implements Callable<Integer> {
             } catch (IOException ignored) {
                 // no figures folder yet: nothing to clear
             }
-        }
-    }
-
-    private static String sha256(Path p) {
-        try {
-            java.security.MessageDigest md = java.security.MessageDigest.getInstance("SHA-256");
-            return java.util.HexFormat.of().formatHex(md.digest(Files.readAllBytes(p)));
-        } catch (IOException | java.security.NoSuchAlgorithmException ex) {
-            return null;
         }
     }
 
