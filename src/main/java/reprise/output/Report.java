@@ -167,6 +167,11 @@ public final class Report {
         if (!c.figures().isEmpty()) {
             sb.append("## Figures\n\n");
             for (Plotter.Drawn d : c.figures()) {
+                if (d.result().files().isEmpty()) {
+                    sb.append("*").append(caption(d)).append(":* ").append(String.join(" ", d.result().notes()))
+                        .append("\n\n");
+                    continue;
+                }
                 Path png = d.result().files().stream().filter(p -> p.toString().endsWith(".png")).findFirst()
                     .orElse(d.result().files().get(0));
                 String rel = folder.relativize(png.toAbsolutePath()).toString().replace('\\', '/');
