@@ -74,6 +74,37 @@ public final class Runner {
     }
 
     /**
+     * Checks, before anything is simulated or written, that the simulator accepts every case: its agents
+     * exist and take their arguments, and its tallies fit in memory with this many threads (the
+     * simulator's estimate is quoted, with the way out).
+     *
+     * @param e the experiment
+     * @param cases its cases
+     * @param threads worker threads
+     * @throws InvalidExperimentException one line per problem, naming the file, the pair's line and field
+     */
+    public static void preflight(Experiment e, List<Case> cases, int threads) {
+        Problems problems = new Problems(e.file().toString());
+        List<String> seen = new ArrayList<>();
+        for (Case c : cases) {
+            try {
+                new Simulator(spec(e, c, threads));
+            } catch (IllegalArgumentException ex) {
+                String message = ex.getMessage();
+                if (seen.contains(c.pair() + message)) {
+                    continue;
+                }
+                seen.add(c.pair() + message);
+                int line = e.pairs().stream().filter(p -> p.name().equals(c.pair())).mapToInt(Experiment.Pair::line)
+                    .findFirst().orElse(0);
+                problems.add(line, "pairs." + c.pair(), "case " + c.id() + ": " + message
+                    + (message.contains("MiB") ? " (in an experiment: fewer snapshots:, or a smaller --threads)" : ""));
+            }
+        }
+        problems.throwIfAny();
+    }
+
+    /**
      * The exact side of a case, or the reason there is none.
      *
      * @param e the experiment
@@ -99,7 +130,12 @@ public final class Runner {
                     + "the stationary distribution is ill-conditioned and mixing is very slow", 1 - slem));
             }
             if (exact.prediction().stationary() == null) {
-                warnings.add("no unique stationary distribution: " + exact.prediction().stationaryNote());
+                String note = exact.prediction().stationaryNote();
+                String prefix = "no unique stationary distribution";
+                double[] limit = exact.prediction().limitFrequencies();
+                warnings.add((note != null && note.startsWith(prefix) ? note : prefix + ": " + note)
+                    + String.format(Locale.ROOT, "; time average from the first round: CC %.6g, CD %.6g, DC %.6g, "
+                        + "DD %.6g; no stationary comparison is made", limit[0], limit[1], limit[2], limit[3]));
             }
             if (exact.transitions() == null && exact.transitionsNote() != null
                 && e.tests().contains(Experiment.Comparison.TRANSITIONS)) {
