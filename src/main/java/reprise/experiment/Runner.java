@@ -134,8 +134,8 @@ public final class Runner {
                 String prefix = "no unique stationary distribution";
                 double[] limit = exact.prediction().limitFrequencies();
                 warnings.add((note != null && note.startsWith(prefix) ? note : prefix + ": " + note)
-                    + String.format(Locale.ROOT, "; time average from the first round: CC %.6g, CD %.6g, DC %.6g, "
-                        + "DD %.6g; no stationary comparison is made", limit[0], limit[1], limit[2], limit[3]));
+                    + "; time average from the first round: CC " + short6(limit[0]) + ", CD " + short6(limit[1])
+                    + ", DC " + short6(limit[2]) + ", DD " + short6(limit[3]) + "; no stationary comparison is made");
             }
             if (exact.transitions() == null && exact.transitionsNote() != null
                 && e.tests().contains(Experiment.Comparison.TRANSITIONS)) {
@@ -146,6 +146,11 @@ public final class Runner {
             warnings.add(0, ex.getMessage());
             return null;
         }
+    }
+
+    /** Six significant digits without trailing zeros, e.g. 0.5, 0, 0.333333. */
+    private static String short6(double v) {
+        return new java.math.BigDecimal(v).round(new java.math.MathContext(6)).stripTrailingZeros().toPlainString();
     }
 
     /**
