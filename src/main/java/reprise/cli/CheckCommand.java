@@ -50,7 +50,8 @@ final class CheckCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads. Default: all cores.")
     Integer threads;
 
-    @Option(names = "--force", description = "Replace the results of an earlier run in the output folder.")
+    @Option(names = "--force", description = "Replace the results of an earlier run in the output folder (they are "
+        + "removed when the new run starts).")
     boolean force;
 
     @Option(names = "--quiet", description = "No progress on stderr.")
@@ -83,38 +84,40 @@ final class CheckCommand implements Callable<Integer> {
         Experiment e;
         Map<Integer, Map<String, Claims.Claim>> claims = Map.of();
         List<Case> cases;
+        int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
+        if (nThreads < 1) {
+            throw new IllegalArgumentException("--threads must be at least 1: " + nThreads);
+        }
         try {
             e = ExperimentFile.read(file);
             cases = e.cases();
             if (e.claims() != null) {
                 claims = Claims.read(e.claims(), e, cases);
             }
+            Runner.preflight(e, cases, nThreads);
         } catch (InvalidExperimentException ex) {
             ex.problems().forEach(line -> err.println("reprise check: " + line));
             return Main.BAD_INPUT;
         }
         Path dir = out != null ? out : e.output();
-        int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
-        if (nThreads < 1) {
-            throw new IllegalArgumentException("--threads must be at least 1: " + nThreads);
-        }
-        checkOutputFolder(dir, force, resume);
-        for (Case c : cases) {
-            try {
-                new Simulator(Runner.spec(e, c, nThreads));
-            } catch (IllegalArgumentException ex) {
-                throw new IllegalArgumentException(file + ": case " + c.id() + ": " + ex.getMessage(), ex);
-            }
-        }
+        String where = file + ": " + (out != null ? "--out" : "output");
+        checkOutputFolder(where, dir, force, resume);
         Checkpoint checkpoint = Checkpoint.of(dir);
         List<WorkPlan.Unit> units = WorkPlan.units(e, cases);
         Map<String, SimulationResult> done = new java.util.HashMap<>();
         if (checkpoint.size() > 0 && !resume && !force) {
-            throw new IllegalArgumentException("--out: " + dir + " holds an interrupted run (" + checkpoint.size()
+            throw new IllegalArgumentException(where + ": " + dir + " holds an interrupted run (" + checkpoint.size()
                 + " finished units in " + Checkpoint.FOLDER + "); use --resume to continue it or --force to start over");
         }
         if (resume) {
-            done.putAll(checkpoint.load(e, Main.version(), units));
+            try {
+                done.putAll(checkpoint.load(e, Main.version(), units));
+            } catch (IllegalArgumentException ex) {
+                throw new IllegalArgumentException(file + ": --resume: " + ex.getMessage(), ex);
+            }
+        }
+        prepareOutputFolder(dir, force);
+        if (resume) {
             if (!quiet) {
                 err.printf(Locale.ROOT, "reprise check: resuming, %d of %d units already done%n", done.size(),
                     units.size());
@@ -153,29 +156,76 @@ final class CheckCommand implements Callable<Integer> {
         return code;
     }
 
-    static void checkOutputFolder(Path dir, boolean force, boolean resume) {
-        if (Files.exists(dir) && !Files.isDirectory(dir)) {
-            throw new IllegalArgumentException("--out: " + dir + " is a file, not a folder");
+    /**
+     * Checks the output folder without creating or writing anything: it is a folder or can be created
+     * (its nearest existing ancestor is a writable folder), it holds no finished run unless {@code force},
+     * and no output name in it is taken by something of the wrong kind.
+     */
+    static void checkOutputFolder(String where, Path dir, boolean force, boolean resume) {
+        Path target = dir.toAbsolutePath().normalize();
+        Path existing = target;
+        while (existing != null && !Files.exists(existing)) {
+            existing = existing.getParent();
+        }
+        if (existing == null) {
+            throw new IllegalArgumentException(where + ": " + dir + " cannot be created: no part of the path exists");
+        }
+        boolean exists = existing.equals(target);
+        if (!Files.isDirectory(existing)) {
+            throw new IllegalArgumentException(where + ": " + dir + (exists ? " is a file, not a folder"
+                : " cannot be created: " + existing + " is a file, not a folder"));
+        }
+        if (!Files.isWritable(existing) || !Files.isExecutable(existing)) {
+            throw new IllegalArgumentException(where + ": cannot write into " + (exists ? dir.toString()
+                : existing + " (to create " + dir + ")") + ": not writable (permissions or a read-only file system)");
+        }
+        if (!exists) {
+            return;
         }
         if (Files.exists(dir.resolve("run.json")) && !force) {
-            throw new IllegalArgumentException("--out: " + dir + " holds a finished run (run.json)"
+            throw new IllegalArgumentException(where + ": " + dir + " holds a finished run (run.json)"
                 + (resume ? ", there is nothing to resume" : "") + "; use --force to replace it, or another --out");
         }
+        for (String name : OUTPUTS) {
+            if (Files.isDirectory(dir.resolve(name))) {
+                throw new IllegalArgumentException(where + ": " + dir.resolve(name) + " is a folder; the run writes a "
+                    + "file of that name");
+            }
+        }
+        for (String name : List.of("figures", Checkpoint.FOLDER)) {
+            if (Files.exists(dir.resolve(name)) && !Files.isDirectory(dir.resolve(name))) {
+                throw new IllegalArgumentException(where + ": " + dir.resolve(name) + " is a file; the run needs a "
+                    + "folder of that name");
+            }
+        }
+    }
+
+    /**
+     * Creates the output folder once every check has passed. With {@code force} the previous run's
+     * results are removed first, so the folder never mixes two runs; temporary files of a write that was
+     * killed are removed too.
+     */
+    static void prepareOutputFolder(Path dir, boolean force) {
         try {
             Files.createDirectories(dir);
-            Path probe = Files.createTempFile(dir, ".write-test", ".tmp");
-            Files.delete(probe);
+            try (Stream<Path> old = Files.list(dir)) {
+                for (Path p : (Iterable<Path>) old::iterator) {
+                    String name = p.getFileName().toString();
+                    boolean stale = name.startsWith(".") && name.endsWith(".partial");
+                    if (stale || force && OUTPUTS.contains(name)) {
+                        Files.deleteIfExists(p);
+                    }
+                }
+            }
+            if (force && Files.isDirectory(dir.resolve("figures"))) {
+                try (Stream<Path> old = Files.list(dir.resolve("figures"))) {
+                    for (Path p : (Iterable<Path>) old::iterator) {
+                        Files.deleteIfExists(p);
+                    }
+                }
+            }
         } catch (IOException | UnsupportedOperationException ex) {
             throw new IllegalArgumentException("--out: cannot write into " + dir + ": " + ex.getMessage(), ex);
-        }
-        if (force) {
-            try (Stream<Path> old = Files.list(dir.resolve("figures"))) {
-                for (Path p : (Iterable<Path>) old::iterator) {
-                    Files.deleteIfExists(p);
-                }
-            } catch (IOException ignored) {
-                // no figures folder yet: nothing to clear
-            }
         }
     }
 

@@ -116,13 +116,7 @@ final class Shards {
             List<Case> cases = e.cases();
             Map<Integer, Map<String, Claims.Claim>> claims = e.claims() == null ? Map.of()
                 : Claims.read(e.claims(), e, cases);
-            for (Case c : cases) {
-                try {
-                    new Simulator(Runner.spec(e, c, 1));
-                } catch (IllegalArgumentException ex) {
-                    throw new IllegalArgumentException(file + ": case " + c.id() + ": " + ex.getMessage(), ex);
-                }
-            }
+            Runner.preflight(e, cases, 1);
             return new Loaded(e, cases, claims);
         } catch (InvalidExperimentException ex) {
             ex.problems().forEach(line -> err.println("reprise " + command + ": " + line));
@@ -274,7 +268,8 @@ final class Shards {
             }
         }
         Path target = out != null ? out : dir;
-        CheckCommand.checkOutputFolder(target, force, false);
+        CheckCommand.checkOutputFolder((out != null ? "--out" : "merge"), target, force, false);
+        CheckCommand.prepareOutputFolder(target, force);
         CheckCommand.RunProgress progress = new CheckCommand.RunProgress(err, false, l.cases().size(), 0);
         List<CaseResult> results = RunOutputs.byCase(e, l.cases(), units, (c, u) -> tallies.get(u), progress);
         Runner.Outcome outcome = Runner.analyse(e, results, l.claims());

@@ -97,6 +97,10 @@ public final class Claims {
                         if (!Double.isFinite(v)) {
                             throw new NumberFormatException();
                         }
+                        if (!q.startsWith("payoff") && !(v >= 0 && v <= 1)) {
+                            problems.add((int) line, q, "is a frequency and must be in [0, 1]: " + cell);
+                            continue;
+                        }
                         values.put(q, v);
                     } catch (NumberFormatException e) {
                         problems.add((int) line, q, "must be a finite number: '" + cell + "'");

@@ -48,6 +48,11 @@ public final class ExperimentFile {
     static final List<String> PAIR_KEYS = List.of("name", "x", "y");
     private static final Pattern NAME = Pattern.compile("[A-Za-z0-9][A-Za-z0-9._-]*");
     private static final long MAX_REPLICATES = 1L << 40;
+    /**
+     * The per-case sums of squared counts are kept in longs (at most 9.22e18); for games of random length
+     * the expected sum must stay below a quarter of that, so that a long tail does not reach it.
+     */
+    private static final double SUM_OF_SQUARES_LIMIT = Long.MAX_VALUE / 4.0;
 
     private ExperimentFile() {
     }
@@ -216,6 +221,17 @@ public final class ExperimentFile {
             problems.add(line(top.get("burn_in")), "burn_in", "must be shorter than the shortest game (" + shortest
                 + " rounds): " + burnIn);
         }
+        long longest = horizons.stream().filter(h -> h instanceof Horizon.Rounds)
+            .mapToLong(h -> ((Horizon.Rounds) h).count()).max().orElse(0);
+        double secondMoment = horizons.stream().filter(h -> h instanceof Horizon.Continuation)
+            .mapToDouble(h -> geometricSecondMoment(((Horizon.Continuation) h).probability())).max().orElse(0);
+        double squares = (double) replicates * Math.max((double) longest * longest, secondMoment);
+        if (squares > SUM_OF_SQUARES_LIMIT) {
+            problems.add(line(top.get("replicates")), "replicates", String.format(Locale.ROOT, "%d games of up to %s "
+                + "rounds would overflow the per-case sums of squared counts (about %.3g, the limit is %.3g): use "
+                + "fewer replicates or shorter games", replicates, longest > 0 ? Long.toString(longest)
+                : "E[L^2] = " + num(secondMoment) + " squared", squares, SUM_OF_SQUARES_LIMIT));
+        }
         for (long t : snapshots) {
             if (t > shortest) {
                 problems.add(line(top.get("snapshots")), "snapshots", "round " + t + " is past the end of the shortest "
@@ -266,6 +282,11 @@ public final class ExperimentFile {
         checkStrategies(e, problems);
         problems.throwIfAny();
         return e;
+    }
+
+    /** E[L^2] for a game length L with P(L = k) = (1 - delta) delta^(k-1): (1 + delta) / (1 - delta)^2. */
+    private static double geometricSecondMoment(double delta) {
+        return (1 + delta) / ((1 - delta) * (1 - delta));
     }
 
     private static void checkPlaceholders(List<Experiment.Pair> pairs, Map<String, List<Double>> parameters,

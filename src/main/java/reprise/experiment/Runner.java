@@ -74,6 +74,37 @@ public final class Runner {
     }
 
     /**
+     * Checks, before anything is simulated or written, that the simulator accepts every case: its agents
+     * exist and take their arguments, and its tallies fit in memory with this many threads (the
+     * simulator's estimate is quoted, with the way out).
+     *
+     * @param e the experiment
+     * @param cases its cases
+     * @param threads worker threads
+     * @throws InvalidExperimentException one line per problem, naming the file, the pair's line and field
+     */
+    public static void preflight(Experiment e, List<Case> cases, int threads) {
+        Problems problems = new Problems(e.file().toString());
+        List<String> seen = new ArrayList<>();
+        for (Case c : cases) {
+            try {
+                new Simulator(spec(e, c, threads));
+            } catch (IllegalArgumentException ex) {
+                String message = ex.getMessage();
+                if (seen.contains(c.pair() + message)) {
+                    continue;
+                }
+                seen.add(c.pair() + message);
+                int line = e.pairs().stream().filter(p -> p.name().equals(c.pair())).mapToInt(Experiment.Pair::line)
+                    .findFirst().orElse(0);
+                problems.add(line, "pairs." + c.pair(), "case " + c.id() + ": " + message
+                    + (message.contains("MiB") ? " (in an experiment: fewer snapshots:, or a smaller --threads)" : ""));
+            }
+        }
+        problems.throwIfAny();
+    }
+
+    /**
      * The exact side of a case, or the reason there is none.
      *
      * @param e the experiment
@@ -100,7 +131,12 @@ public final class Runner {
                     + "the stationary distribution is ill-conditioned and mixing is very slow", 1 - slem));
             }
             if (exact.prediction().stationary() == null) {
-                warnings.add(exact.prediction().stationaryNote());
+                String note = exact.prediction().stationaryNote();
+                String prefix = "no unique stationary distribution";
+                double[] limit = exact.prediction().limitFrequencies();
+                warnings.add((note != null && note.startsWith(prefix) ? note : prefix + ": " + note)
+                    + "; time average from the first round: CC " + short6(limit[0]) + ", CD " + short6(limit[1])
+                    + ", DC " + short6(limit[2]) + ", DD " + short6(limit[3]) + "; no stationary comparison is made");
             }
             if (exact.transitions() == null && exact.transitionsNote() != null
                 && e.tests().contains(Experiment.Comparison.TRANSITIONS)) {
@@ -111,6 +147,11 @@ public final class Runner {
             warnings.add(0, ex.getMessage());
             return null;
         }
+    }
+
+    /** Six significant digits without trailing zeros, e.g. 0.5, 0, 0.333333. */
+    private static String short6(double v) {
+        return new java.math.BigDecimal(v).round(new java.math.MathContext(6)).stripTrailingZeros().toPlainString();
     }
 
     /**

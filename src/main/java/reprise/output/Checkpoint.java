@@ -148,11 +148,11 @@ public final class Checkpoint {
         if (!FORMAT.equals(o.path("format").asText())) {
             return "format " + o.path("format").asText("none") + ", expected " + FORMAT;
         }
-        if (!e.sha256().equals(o.path("experiment_sha256").asText())) {
-            return "the experiment file has changed since";
-        }
         if (o.path("seed").asLong() != e.seed()) {
             return "seed " + o.path("seed").asLong() + ", now " + e.seed();
+        }
+        if (!e.sha256().equals(o.path("experiment_sha256").asText())) {
+            return "the experiment file has changed since";
         }
         if (!toolVersion.equals(o.path("tool_version").asText())) {
             return "tool version " + o.path("tool_version").asText() + ", now " + toolVersion;

@@ -29,7 +29,7 @@ public final class Plotter {
      *
      * @param kind the figure kind
      * @param group the group it shows
-     * @param result the files and notes
+     * @param result the files and notes (no files when the figure had nothing to draw; a note says why)
      */
     public record Drawn(String kind, String group, FigureResult result) {
     }
@@ -37,12 +37,17 @@ public final class Plotter {
     private Plotter() {
     }
 
+    /** What {@code Figures} says when no point of a figure can be drawn (e.g. only zeros on a log axis). */
+    private static final String NOTHING_TO_DRAW = "has nothing to draw";
+
     /**
-     * Draws all figures.
+     * Draws all figures. A figure with no drawable point (for example an error figure of a deterministic
+     * pair, whose errors are all 0 on a log axis) is not an error of the run: it is returned with no files
+     * and a note starting "not drawn:", so that the results and the report are still written.
      *
      * @param points the points
      * @param directory where the figures go
-     * @return what was drawn, in order
+     * @return what was drawn (or not drawn, with no files), in order
      */
     public static List<Drawn> draw(List<Curves.Point> points, Path directory) {
         Figures figures = Figures.withDefaults();
@@ -54,15 +59,23 @@ public final class Plotter {
         List<Drawn> out = new ArrayList<>();
         byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> {
             String base = FileNames.safe(figure + "-" + group);
-            FigureResult r = switch (figure) {
-                case "convergence" -> convergence(figures, directory, base, pts);
-                case "error" -> error(figures, directory, base, pts);
-                case "payoff" -> payoff(figures, directory, base, pts);
-                case "distribution" -> distribution(figures, directory, base, pts);
-                case "deviation" -> deviation(figures, directory, base, pts);
-                case "verdicts" -> verdicts(figures, directory, base, pts);
-                default -> null;
-            };
+            FigureResult r;
+            try {
+                r = switch (figure) {
+                    case "convergence" -> convergence(figures, directory, base, pts);
+                    case "error" -> error(figures, directory, base, pts);
+                    case "payoff" -> payoff(figures, directory, base, pts);
+                    case "distribution" -> distribution(figures, directory, base, pts);
+                    case "deviation" -> deviation(figures, directory, base, pts);
+                    case "verdicts" -> verdicts(figures, directory, base, pts);
+                    default -> null;
+                };
+            } catch (IllegalArgumentException ex) {
+                if (!String.valueOf(ex.getMessage()).contains(NOTHING_TO_DRAW)) {
+                    throw ex;
+                }
+                r = new FigureResult(List.of(), List.of("not drawn: " + ex.getMessage()));
+            }
             if (r != null) {
                 out.add(new Drawn(figure, group, r));
             }

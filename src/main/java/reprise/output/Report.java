@@ -159,6 +159,13 @@ public final class Report {
                 warnings.add(r.c().id() + ": " + w);
             }
         }
+        for (ResultRow r : rows) {
+            String switched = smallCountNote(r.note());
+            if (switched != null) {
+                warnings.add(r.caseId() + ": " + r.quantity() + ": expected counts too small for the chi-square "
+                    + "approximation: " + switched);
+            }
+        }
         if (!warnings.isEmpty()) {
             sb.append("## Warnings\n\n");
             warnings.forEach(w -> sb.append("- ").append(w).append('\n'));
@@ -167,6 +174,11 @@ public final class Report {
         if (!c.figures().isEmpty()) {
             sb.append("## Figures\n\n");
             for (Plotter.Drawn d : c.figures()) {
+                if (d.result().files().isEmpty()) {
+                    sb.append("*").append(caption(d)).append(":* ").append(String.join(" ", d.result().notes()))
+                        .append("\n\n");
+                    continue;
+                }
                 Path png = d.result().files().stream().filter(p -> p.toString().endsWith(".png")).findFirst()
                     .orElse(d.result().files().get(0));
                 String rel = folder.relativize(png.toAbsolutePath()).toString().replace('\\', '/');
@@ -231,6 +243,23 @@ public final class Report {
             + "small. For games of random length, per-round values are E[total] / E[length] (ratio of "
             + "expectations), not the mean of per-game averages.",
         "");
+
+    /**
+     * The part of a test's note saying that small expected counts changed the test (sparse transition
+     * cells pooled, or an exact or Monte Carlo multinomial test used instead of chi-square), or null.
+     */
+    static String smallCountNote(String note) {
+        if (note == null) {
+            return null;
+        }
+        for (String part : note.split("; ")) {
+            if (part.contains("pooled within their rows") || part.startsWith("exact multinomial test")
+                || part.startsWith("Monte Carlo multinomial test")) {
+                return part;
+            }
+        }
+        return null;
+    }
 
     private static String testCell(List<ResultRow> rows, String quantity) {
         return rows.stream().filter(r -> r.quantity().equals(quantity)).findFirst()
