@@ -33,6 +33,7 @@ final class Accumulator {
     /** 4 slots: sum over games of L N_s. */
     final long[] lengthStateSums = new long[8];
 
+    /** The state counts when the current game began; reused by endGame for the game's own counts. */
     private final long[] before = new long[4];
 
     Accumulator(int historyMemory, long[] snapshotRounds, int timeRounds) {
@@ -55,18 +56,18 @@ final class Accumulator {
         lengthMin = Math.min(lengthMin, length);
         lengthMax = Math.max(lengthMax, length);
         Wide.addProduct(lengthSquares, 0, length, length);
-        long n0 = states[0] - before[0];
-        long n1 = states[1] - before[1];
-        long n2 = states[2] - before[2];
-        long n3 = states[3] - before[3];
-        long tallied = n0 + n1 + n2 + n3;
+        long[] n = before;
+        long tallied = 0;
+        for (int s = 0; s < 4; s++) {
+            n[s] = states[s] - n[s];
+            tallied += n[s];
+        }
         if (tallied == 0) {
             return;
         }
         gamesTallied = Math.addExact(gamesTallied, 1);
         talliedSum = Math.addExact(talliedSum, tallied);
         Wide.addProduct(talliedSquares, 0, tallied, tallied);
-        long[] n = {n0, n1, n2, n3};
         for (int s = 0; s < 4; s++) {
             if (n[s] == 0) {
                 continue;
