@@ -13,14 +13,14 @@ import reprise.game.StageGame;
 import reprise.game.Strategies;
 
 /**
- * Rounds per second of the engine: one operation is one round (each invocation plays 4 games of
- * 500,000 rounds, one replicate per chunk so that 2 threads share the work).
+ * Rounds per second of the engine: one operation is one round (each invocation plays 16 games of
+ * 250,000 rounds, one replicate per chunk so that 2 threads share the work).
  * {@code fused}: memory-one players with execution noise on the fast path; {@code literal}: memory-two
  * players with execution and perception noise on the literal path.
  */
 public class SimulatorBenchmark extends BenchmarkSettings {
-    private static final int GAMES = 4;
-    private static final int ROUNDS = 500_000;
+    private static final int GAMES = 16;
+    private static final int ROUNDS = 250_000;
 
     @Param({"fused", "literal"})
     public String path;

@@ -159,13 +159,17 @@ public final class Report {
                 warnings.add(r.c().id() + ": " + w);
             }
         }
+        Map<String, List<String>> sparse = new LinkedHashMap<>();
         for (ResultRow r : rows) {
             String switched = smallCountNote(r.note());
             if (switched != null) {
-                warnings.add(r.caseId() + ": " + r.quantity() + ": expected counts too small for the chi-square "
-                    + "approximation: " + switched);
+                String how = switched.startsWith("Monte Carlo") ? "Monte Carlo multinomial test"
+                    : switched.startsWith("exact") ? "exact multinomial test" : switched;
+                sparse.computeIfAbsent(r.caseId(), k -> new ArrayList<>()).add(r.quantity() + " (" + how + ")");
             }
         }
+        sparse.forEach((id, list) -> warnings.add(id + ": expected counts too small for the chi-square approximation, "
+            + "handled in " + String.join(", ", list)));
         if (!warnings.isEmpty()) {
             sb.append("## Warnings\n\n");
             warnings.forEach(w -> sb.append("- ").append(w).append('\n'));
