@@ -72,6 +72,7 @@ public final class Main implements Runnable {
 
     static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
+        cl.getSubcommands().get("calibrate").getCommandSpec().resourceBundle(new CalibrateCommand.Help());
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             PrintWriter err = commandLine.getErr();
