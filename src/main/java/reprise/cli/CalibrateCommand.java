@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
 import java.nio.file.Path;
+import java.util.ListResourceBundle;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.apache.commons.csv.CSVFormat;
@@ -37,6 +38,23 @@ import reprise.stats.Calibration;
             + "(two-sided binomial p below 0.001)."})
 final class CalibrateCommand implements Callable<Integer> {
 
+    /**
+     * calibrate's wording of the shared simulation options, keyed by option name without dashes (picocli
+     * looks an option's description up in the command's resource bundle before using its annotation).
+     */
+    static final class Help extends ListResourceBundle {
+        @Override
+        protected Object[][] getContents() {
+            return new Object[][] {
+                {"replicates", "Independent games per repetition (at least 2). Default: ${DEFAULT-VALUE}."},
+                {"seed", "Master seed; repetition k uses the seed SplitMix64(S, k) (see README). "
+                    + "Default: ${DEFAULT-VALUE}."},
+                {"threads", "Repetitions run at once. Default: all cores."},
+                {"snapshots", "Also test the state at these rounds across games."},
+            };
+        }
+    }
+
     /** Level of the binomial check behind exit code 1. */
     static final double CHECK_LEVEL = 0.001;
 
@@ -46,9 +64,8 @@ final class CalibrateCommand implements Callable<Integer> {
     @Mixin
     MatchOptions options;
 
-    @Option(names = "--replicates", paramLabel = "G", defaultValue = "1000",
-        description = "Independent games per repetition (at least 2). Default: ${DEFAULT-VALUE}.")
-    long replicates;
+    @Mixin
+    SimulationOptions simulation;
 
     @Option(names = "--repetitions", paramLabel = "K", defaultValue = "200",
         description = "Independent repetitions of the whole simulation. Default: ${DEFAULT-VALUE}.")
@@ -57,22 +74,6 @@ final class CalibrateCommand implements Callable<Integer> {
     @Option(names = "--alpha", paramLabel = "A", defaultValue = "0.05",
         description = "Nominal level of every test, in (0, 1). Default: ${DEFAULT-VALUE}.")
     double alpha;
-
-    @Option(names = "--seed", paramLabel = "S", defaultValue = "1",
-        description = "Master seed; repetition k uses the seed SplitMix64(S, k) (see README). "
-            + "Default: ${DEFAULT-VALUE}.")
-    long seed;
-
-    @Option(names = "--threads", paramLabel = "N", description = "Repetitions run at once. Default: all cores.")
-    Integer threads;
-
-    @Option(names = "--burn-in", paramLabel = "B", defaultValue = "0",
-        description = "Rounds at the start of each game left out of the tallies. Default: ${DEFAULT-VALUE}.")
-    long burnIn;
-
-    @Option(names = "--snapshots", paramLabel = "t1,t2,...", split = ",",
-        description = "Also test the state at these rounds across games.")
-    long[] snapshots;
 
     @Option(names = "--predict-noise", paramLabel = "E[,EY]",
         description = "Execution error the exact side assumes (default: the simulated one).")
@@ -103,49 +104,25 @@ final class CalibrateCommand implements Callable<Integer> {
     @Option(names = "--json", description = "Print one JSON object (documented in README).")
     boolean json;
 
-    @Option(names = "--quiet", description = "No progress line on stderr.")
-    boolean quiet;
-
     @Override
     public Integer call() {
         Match match = options.match();
-        Horizon horizon = options.horizonOrNull();
-        if (horizon == null) {
-            throw new IllegalArgumentException("calibrate needs --rounds N or --continuation DELTA");
-        }
-        if (replicates < 2) {
-            throw new IllegalArgumentException("--replicates must be at least 2 (the z tests estimate a standard "
-                + "error): " + replicates);
-        }
+        Horizon horizon = options.requiredHorizon("calibrate");
+        simulation.check(2, "the z tests estimate a standard error");
         if (repetitions < 1) {
             throw new IllegalArgumentException("--repetitions must be at least 1: " + repetitions);
         }
         if (!(alpha > 0 && alpha < 1)) {
             throw new IllegalArgumentException("--alpha must be in (0, 1): " + alpha);
         }
-        if (threads != null && threads < 1) {
-            throw new IllegalArgumentException("--threads must be at least 1: " + threads);
-        }
-        if (burnIn < 0) {
-            throw new IllegalArgumentException("--burn-in must be at least 0: " + burnIn);
-        }
         Match predicted = predictedMatch(match);
         Horizon predictedH = predictedHorizon(horizon);
-        if (predictedH instanceof Horizon.Rounds r && burnIn >= r.count()) {
-            throw new IllegalArgumentException("--burn-in must be shorter than the predicted game (" + r.count()
-                + " rounds): " + burnIn);
-        }
-        SimulationSpec s = SimulationSpec.of(match, horizon, replicates, seed).withBurnIn(burnIn);
-        if (threads != null) {
-            s = s.withThreads(threads);
-        }
-        if (snapshots != null) {
-            s = s.withSnapshots(snapshots);
-        }
+        simulation.burnIn.shorterThan(predictedH, "predicted game");
+        SimulationSpec s = simulation.spec(match, horizon);
         CalibrationStudy study = CalibrationStudy.of(s).withRepetitions(repetitions).withAlpha(alpha)
             .withPrediction(predicted, predictedH);
         PrintWriter err = spec.commandLine().getErr();
-        ProgressLine progress = new ProgressLine(err, !quiet, "calibrate: ");
+        ProgressLine progress = new ProgressLine(err, !simulation.quiet(), "calibrate: ");
         long t0 = System.nanoTime();
         CalibrationStudy.Result r;
         try {
@@ -163,7 +140,7 @@ final class CalibrateCommand implements Callable<Integer> {
         } else {
             table(o, r, match, horizon, predicted, predictedH, s);
         }
-        if (!quiet) {
+        if (!simulation.quiet()) {
             err.println(String.format(Locale.ROOT, "calibrate: %d repetitions, %d rounds in %.2f s on %d threads",
                 r.repetitions(), r.roundsTotal(), seconds, s.threads()));
             for (String w : r.warnings()) {

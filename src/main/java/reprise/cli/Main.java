@@ -40,7 +40,7 @@ public final class Main implements Runnable {
 
     @Override
     public void run() {
-        throw new CommandLine.ParameterException(spec.commandLine(), "a command is required (try --help)");
+        throw new CommandLine.ParameterException(spec.commandLine(), "a command is required");
     }
 
     /**
@@ -72,6 +72,7 @@ public final class Main implements Runnable {
 
     static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
+        cl.getSubcommands().get("calibrate").getCommandSpec().resourceBundle(new CalibrateCommand.Help());
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             PrintWriter err = commandLine.getErr();
@@ -86,9 +87,13 @@ public final class Main implements Runnable {
         });
         cl.setParameterExceptionHandler((ex, args) -> {
             CommandLine c = ex.getCommandLine();
+            String suggestions = "";
+            if (ex instanceof CommandLine.UnmatchedArgumentException u && !u.getSuggestions().isEmpty()) {
+                suggestions = "; did you mean " + String.join(" or ", u.getSuggestions()) + "?";
+            }
             c.getErr().println((c.getParent() == null ? "reprise" : "reprise " + c.getCommandName()) + ": "
-                + ex.getMessage());
-            c.getErr().println("(see 'reprise " + (c.getParent() == null ? "" : c.getCommandName() + " ") + "--help')");
+                + ex.getMessage() + suggestions + " (see 'reprise "
+                + (c.getParent() == null ? "" : c.getCommandName() + " ") + "--help')");
             return BAD_INPUT;
         });
         return cl;

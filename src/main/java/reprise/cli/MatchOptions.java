@@ -57,6 +57,19 @@ final class MatchOptions {
             new Noise(e[0], e[1], h[0], h[1]));
     }
 
+    /**
+     * @param command the command that needs a horizon, for the message
+     * @return the horizon given
+     * @throws IllegalArgumentException when none was given
+     */
+    Horizon requiredHorizon(String command) {
+        Horizon h = horizonOrNull();
+        if (h == null) {
+            throw new IllegalArgumentException(command + " needs --rounds N or --continuation DELTA");
+        }
+        return h;
+    }
+
     /** @return the horizon given, or null when none was */
     Horizon horizonOrNull() {
         if (rounds != null && continuation != null) {

@@ -42,9 +42,8 @@ final class PlanCommand implements Callable<Integer> {
     @Mixin
     MatchOptions options;
 
-    @Option(names = "--burn-in", paramLabel = "B", defaultValue = "0",
-        description = "Rounds at the start of each game left out of the tallies. Default: ${DEFAULT-VALUE}.")
-    long burnIn;
+    @Mixin
+    BurnInOption burnInOption;
 
     @Option(names = "--half-width", paramLabel = "W",
         description = "Target half-width of the confidence interval of each quantity (> 0).")
@@ -89,10 +88,7 @@ final class PlanCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Match match = options.match();
-        Horizon horizon = options.horizonOrNull();
-        if (horizon == null) {
-            throw new IllegalArgumentException("plan needs --rounds N or --continuation DELTA");
-        }
+        Horizon horizon = options.requiredHorizon("plan");
         if (halfWidth == null && detect == null) {
             throw new IllegalArgumentException("plan needs --half-width W, --detect D, or both");
         }
@@ -111,13 +107,7 @@ final class PlanCommand implements Callable<Integer> {
         if (!(power > alpha && power < 1)) {
             throw new IllegalArgumentException("--power must be in (alpha, 1) = (" + alpha + ", 1): " + power);
         }
-        if (burnIn < 0) {
-            throw new IllegalArgumentException("--burn-in must be at least 0: " + burnIn);
-        }
-        if (horizon instanceof Horizon.Rounds r && burnIn >= r.count()) {
-            throw new IllegalArgumentException("--burn-in must be shorter than the game (" + r.count() + " rounds): "
-                + burnIn);
-        }
+        long burnIn = burnInOption.shorterThan(horizon, "game");
         CaseAnalysis.Exact exact;
         try {
             exact = CaseAnalysis.exact(match, horizon, burnIn);
@@ -184,7 +174,7 @@ final class PlanCommand implements Callable<Integer> {
         o.put("y", match.y().label());
         o.put("game", match.game().label());
         o.set("horizon", SolveCommand.horizonNode(horizon));
-        o.put("burn_in", burnIn);
+        o.put("burn_in", burnInOption.burnIn);
         Json.put(o, "expected_tallied_length", exact.meanLength());
         Json.put(o, "confidence", confidence);
         if (halfWidth == null) {
@@ -234,7 +224,7 @@ final class PlanCommand implements Callable<Integer> {
 
     private void table(PrintWriter out, List<Row> rows, CaseAnalysis.Exact exact, Match match, Horizon horizon) {
         out.printf(Locale.ROOT, "X: %s   Y: %s   game: %s   %s, burn-in %d%n", match.x().label(), match.y().label(),
-            match.game().label(), horizon.describe(), burnIn);
+            match.game().label(), horizon.describe(), burnInOption.burnIn);
         out.printf(Locale.ROOT, "expected tallied rounds per game: %s%n", SolveCommand.fmt(exact.meanLength()));
         if (halfWidth != null) {
             out.printf(Locale.ROOT, "half-width %s at confidence %s%n", SolveCommand.fmt(halfWidth),

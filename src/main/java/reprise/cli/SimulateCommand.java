@@ -31,24 +31,8 @@ final class SimulateCommand implements Callable<Integer> {
     @Mixin
     MatchOptions options;
 
-    @Option(names = "--replicates", paramLabel = "G", defaultValue = "1000",
-        description = "Number of independent games. Default: ${DEFAULT-VALUE}.")
-    long replicates;
-
-    @Option(names = "--seed", paramLabel = "S", defaultValue = "1",
-        description = "Master seed; game i's random stream depends only on (S, i). Default: ${DEFAULT-VALUE}.")
-    long seed;
-
-    @Option(names = "--threads", paramLabel = "N", description = "Worker threads. Default: all cores.")
-    Integer threads;
-
-    @Option(names = "--burn-in", paramLabel = "B", defaultValue = "0",
-        description = "Rounds at the start of each game left out of the tallies. Default: ${DEFAULT-VALUE}.")
-    long burnIn;
-
-    @Option(names = "--snapshots", paramLabel = "t1,t2,...", split = ",",
-        description = "Count the state at these rounds across games.")
-    long[] snapshots;
+    @Mixin
+    SimulationOptions simulation;
 
     @Option(names = "--literal", description = "Always enact every event with its own draw (slower; the fast "
         + "path for memory-one players is equal in distribution).")
@@ -57,35 +41,15 @@ final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--json", description = "Print one JSON object (documented in README).")
     boolean json;
 
-    @Option(names = "--quiet", description = "No progress line on stderr.")
-    boolean quiet;
-
     @Override
     public Integer call() {
         Match match = options.match();
-        Horizon horizon = options.horizonOrNull();
-        if (horizon == null) {
-            throw new IllegalArgumentException("simulate needs --rounds N or --continuation DELTA");
-        }
-        if (replicates < 1) {
-            throw new IllegalArgumentException("--replicates must be at least 1: " + replicates);
-        }
-        if (threads != null && threads < 1) {
-            throw new IllegalArgumentException("--threads must be at least 1: " + threads);
-        }
-        if (burnIn < 0) {
-            throw new IllegalArgumentException("--burn-in must be at least 0: " + burnIn);
-        }
-        SimulationSpec s = SimulationSpec.of(match, horizon, replicates, seed).withBurnIn(burnIn)
+        Horizon horizon = options.requiredHorizon("simulate");
+        simulation.check(1, "");
+        SimulationSpec s = simulation.spec(match, horizon)
             .withEnactment(literal ? Enactment.LITERAL : Enactment.FASTEST);
-        if (threads != null) {
-            s = s.withThreads(threads);
-        }
-        if (snapshots != null) {
-            s = s.withSnapshots(snapshots);
-        }
         PrintWriter err = spec.commandLine().getErr();
-        ProgressLine progress = new ProgressLine(err, !quiet, "simulate: ");
+        ProgressLine progress = new ProgressLine(err, !simulation.quiet(), "simulate: ");
         long t0 = System.nanoTime();
         SimulationResult r = new Simulator(s).run(progress);
         progress.finish();
@@ -96,7 +60,7 @@ final class SimulateCommand implements Callable<Integer> {
         } else {
             table(out, r, match, horizon, s.threads(), seconds);
         }
-        if (!quiet) {
+        if (!simulation.quiet()) {
             err.println(String.format(Locale.ROOT, "simulate: %d rounds in %.2f s (%.3g rounds/s) on %d threads",
                 r.roundsTotal(), seconds, r.roundsTotal() / Math.max(seconds, 1e-9), s.threads()));
         }

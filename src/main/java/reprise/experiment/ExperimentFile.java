@@ -261,7 +261,9 @@ public final class ExperimentFile {
         String claimsText = string(top, "claims", null, problems);
         if (claimsText != null) {
             claims = base.resolve(claimsText).normalize();
-            if (!Files.isRegularFile(claims)) {
+            if (Files.isDirectory(claims)) {
+                problems.add(line(top.get("claims")), "claims", "is a folder, not a claims file: " + claims);
+            } else if (!Files.isRegularFile(claims)) {
                 problems.add(line(top.get("claims")), "claims", "no such file: " + claims);
             }
         }
