@@ -41,6 +41,14 @@ final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--json", description = "Print one JSON object (documented in README).")
     boolean json;
 
+    @Option(names = "--long-chain", description = "For one long game (--replicates 1 --rounds N, no burn-in): "
+        + "95% intervals of each state frequency and payoff by batch means (batch size floor(sqrt(N))) beside "
+        + "those from the exact asymptotic variance.")
+    boolean longChain;
+
+    /** Confidence of the --long-chain intervals. */
+    static final double LONG_CHAIN_CONFIDENCE = 0.95;
+
     @Override
     public Integer call() {
         Match match = options.match();
@@ -48,6 +56,18 @@ final class SimulateCommand implements Callable<Integer> {
         simulation.check(1, "");
         SimulationSpec s = simulation.spec(match, horizon)
             .withEnactment(literal ? Enactment.LITERAL : Enactment.FASTEST);
+        if (longChain) {
+            if (simulation.replicates != 1 || !(horizon instanceof Horizon.Rounds rounds)
+                || simulation.burnIn.burnIn != 0) {
+                throw new IllegalArgumentException("--long-chain needs one game of fixed length: --replicates 1 "
+                    + "--rounds N and no --burn-in");
+            }
+            if (rounds.count() < 4 || rounds.count() > Integer.MAX_VALUE) {
+                throw new IllegalArgumentException("--long-chain needs --rounds between 4 and " + Integer.MAX_VALUE + ": "
+                    + rounds.count());
+            }
+            s = s.withTimeResolved((int) rounds.count());
+        }
         PrintWriter err = spec.commandLine().getErr();
         ProgressLine progress = new ProgressLine(err, !simulation.quiet(), "simulate: ");
         long t0 = System.nanoTime();
@@ -55,10 +75,18 @@ final class SimulateCommand implements Callable<Integer> {
         progress.finish();
         double seconds = (System.nanoTime() - t0) / 1e9;
         PrintWriter out = spec.commandLine().getOut();
+        LongChain.Row[] chain = longChain ? LongChain.rows(r, match, horizon, LONG_CHAIN_CONFIDENCE) : null;
         if (json) {
-            out.println(Json.write(json(r, match, horizon, s.threads())));
+            ObjectNode o = json(r, match, horizon, s.threads());
+            if (chain != null) {
+                o.set("long_chain", LongChain.json(chain));
+            }
+            out.println(Json.write(o));
         } else {
             table(out, r, match, horizon, s.threads(), seconds);
+            if (chain != null) {
+                LongChain.table(out, chain, r.roundsTotal(), LONG_CHAIN_CONFIDENCE);
+            }
         }
         if (!simulation.quiet()) {
             err.println(String.format(Locale.ROOT, "simulate: %d rounds in %.2f s (%.3g rounds/s) on %d threads",
