@@ -118,11 +118,13 @@ public record GameSummary(long games, long[] sumCounts, long[][] sumCountProduct
         return new GameSummary(perGameCounts.length, n, nn, ln, l, ll);
     }
 
+    /** @return sum over games of N_s, per state CC, CD, DC, DD (a copy) */
     @Override
     public long[] sumCounts() {
         return sumCounts.clone();
     }
 
+    /** @return sum over games of N_s N_r, 4 x 4 (a copy) */
     @Override
     public long[][] sumCountProducts() {
         long[][] c = new long[4][];
@@ -132,6 +134,7 @@ public record GameSummary(long games, long[] sumCounts, long[][] sumCountProduct
         return c;
     }
 
+    /** @return sum over games of L N_s, per state (a copy) */
     @Override
     public long[] sumLengthCounts() {
         return sumLengthCounts.clone();

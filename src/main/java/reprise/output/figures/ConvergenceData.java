@@ -37,6 +37,7 @@ public record ConvergenceData(String title, List<Estimates> simulated, List<Curv
             State.COUNT);
     }
 
+    /** @return the stationary (a copy) */
     @Override
     public double[] stationary() {
         return stationary.clone();

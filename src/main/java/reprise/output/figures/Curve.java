@@ -29,11 +29,13 @@ public record Curve(double[] x, double[] y) {
         return x.length;
     }
 
+    /** @return the x values (a copy) */
     @Override
     public double[] x() {
         return x.clone();
     }
 
+    /** @return the y values (a copy) */
     @Override
     public double[] y() {
         return y.clone();

@@ -36,11 +36,13 @@ public record ErrorScalingData(String title, String quantity, double[] gameLengt
         absoluteError = Validation.sameLength("absolute errors", absoluteError, gameLengths.length);
     }
 
+    /** @return the game lengths (a copy) */
     @Override
     public double[] gameLengths() {
         return gameLengths.clone();
     }
 
+    /** @return the absolute error (a copy) */
     @Override
     public double[] absoluteError() {
         return absoluteError.clone();

@@ -58,21 +58,25 @@ public record Estimates(double[] x, double[] estimate, double[] lower, double[] 
         return x.length;
     }
 
+    /** @return the x values (a copy) */
     @Override
     public double[] x() {
         return x.clone();
     }
 
+    /** @return the estimates (a copy) */
     @Override
     public double[] estimate() {
         return estimate.clone();
     }
 
+    /** @return the lower interval ends (a copy) */
     @Override
     public double[] lower() {
         return lower.clone();
     }
 
+    /** @return the upper interval ends (a copy) */
     @Override
     public double[] upper() {
         return upper.clone();

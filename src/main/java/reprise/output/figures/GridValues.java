@@ -42,6 +42,7 @@ public record GridValues(String title, GridAxes axes, String valueDescription, d
         values = copy;
     }
 
+    /** @return the values (a copy) */
     @Override
     public double[][] values() {
         double[][] copy = new double[values.length][];

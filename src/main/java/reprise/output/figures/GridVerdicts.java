@@ -61,6 +61,7 @@ public record GridVerdicts(String title, GridAxes axes, List<String> verdictName
         verdicts = copy;
     }
 
+    /** @return the verdicts (a copy) */
     @Override
     public int[][] verdicts() {
         int[][] copy = new int[verdicts.length][];

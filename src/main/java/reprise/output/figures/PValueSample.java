@@ -31,6 +31,7 @@ public record PValueSample(String testName, double[] pValues) {
         }
     }
 
+    /** @return the p values (a copy) */
     @Override
     public double[] pValues() {
         return pValues.clone();
