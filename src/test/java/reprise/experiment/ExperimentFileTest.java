@@ -98,6 +98,8 @@ class ExperimentFileTest {
         List<Case> cases = e.cases();
         assertEquals(18, cases.size());
         Map<Integer, Map<String, Claims.Claim>> claims = Claims.read(e.claims(), e, cases);
+        // The README's value: Nowak & Sigmund (1990), s1 = (q1 + r1 q2)/(1 - r1 r2) with p' = 0.99 p + 0.01 (1 - p),
+        // (0.206 + 0.686 * 0.402) / (1 - 0.686 * 0.294) = 0.603485 (computed by hand); here only its parsing is checked.
         assertEquals(0.60349, claims.get(2).get("coop_x").value());
         assertEquals(6, claims.values().stream().filter(m -> m.containsKey("payoff_x")).count());
     }
