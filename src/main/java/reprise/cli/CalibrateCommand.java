@@ -21,6 +21,7 @@ import reprise.game.Horizon;
 import reprise.game.Match;
 import reprise.game.Noise;
 import reprise.output.AtomicFiles;
+import reprise.output.Plotter;
 import reprise.sim.SimulationSpec;
 import reprise.stats.Calibration;
 
@@ -98,7 +99,8 @@ final class CalibrateCommand implements Callable<Integer> {
     }
 
     @Option(names = "--out", paramLabel = "DIR",
-        description = "Also write DIR/calibration.csv (test, repetition, p_value), atomically.")
+        description = "Also write DIR/calibration.csv (test, repetition, p_value), atomically, and the QQ plot of "
+            + "the p-values against the uniform distribution as DIR/figures/calibration-qq.png and .svg.")
     Path out;
 
     @Option(names = "--json", description = "Print one JSON object (documented in README).")
@@ -133,6 +135,8 @@ final class CalibrateCommand implements Callable<Integer> {
         double seconds = (System.nanoTime() - t0) / 1e9;
         if (out != null) {
             writeCsv(out.resolve("calibration.csv"), r);
+            Plotter.Drawn d = Plotter.drawCalibration(out.resolve("calibration.csv"), out.resolve("figures"));
+            d.result().notes().forEach(n -> err.println("calibrate: figure: " + n));
         }
         PrintWriter o = spec.commandLine().getOut();
         if (json) {

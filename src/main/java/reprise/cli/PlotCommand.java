@@ -13,8 +13,8 @@ import reprise.output.Plotter;
 
 /** {@code plot}: redraws the figures of a results folder from its curves.csv, without simulating again. */
 @Command(name = "plot", mixinStandardHelpOptions = true,
-    description = "Redraws the figures of a results folder (written by check) from its curves.csv into its "
-        + "figures/ folder, without simulating again.")
+    description = "Redraws the figures of a results folder from its curves.csv (written by check) and "
+        + "calibration.csv (written by calibrate --out) into its figures/ folder, without simulating again.")
 final class PlotCommand implements Callable<Integer> {
 
     @Spec
@@ -26,10 +26,18 @@ final class PlotCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Path curves = dir.resolve("curves.csv");
-        if (!Files.isRegularFile(curves)) {
-            throw new IllegalArgumentException(dir + " is not a results folder: no curves.csv in it");
+        Path calibration = dir.resolve("calibration.csv");
+        if (!Files.isRegularFile(curves) && !Files.isRegularFile(calibration)) {
+            throw new IllegalArgumentException(dir + " is not a results folder: no curves.csv (from check) or "
+                + "calibration.csv (from calibrate --out) in it");
         }
-        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures"));
+        List<Plotter.Drawn> drawn = new java.util.ArrayList<>();
+        if (Files.isRegularFile(curves)) {
+            drawn.addAll(Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures")));
+        }
+        if (Files.isRegularFile(calibration)) {
+            drawn.add(Plotter.drawCalibration(calibration, dir.resolve("figures")));
+        }
         for (Plotter.Drawn d : drawn) {
             d.result().files().forEach(f -> spec.commandLine().getOut().println(f));
             d.result().notes().forEach(n -> spec.commandLine().getErr().println("plot: " + d.kind() + " (" + d.group()

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.TreeSet;
 import reprise.experiment.Curves;
 import reprise.game.State;
+import reprise.output.figures.CalibrationData;
 import reprise.output.figures.ConvergenceData;
 import reprise.output.figures.Curve;
 import reprise.output.figures.ErrorScalingData;
@@ -18,6 +19,7 @@ import reprise.output.figures.FileNames;
 import reprise.output.figures.GridAxes;
 import reprise.output.figures.GridValues;
 import reprise.output.figures.GridVerdicts;
+import reprise.output.figures.PValueSample;
 import reprise.output.figures.PayoffData;
 import reprise.output.figures.StateDistributionData;
 
@@ -81,6 +83,42 @@ public final class Plotter {
             }
         }));
         return out;
+    }
+
+    /**
+     * Draws the p-value calibration figure (QQ plot against the uniform distribution) from a
+     * {@code calibration.csv} written by {@code calibrate} (columns test, repetition, p_value). The per-quantity
+     * z tests are left out to keep the figure readable; the pooled-rounds illustration stays in, labelled.
+     *
+     * @param calibrationCsv the file
+     * @param directory where the figure goes
+     * @return what was drawn
+     */
+    public static Drawn drawCalibration(Path calibrationCsv, Path directory) {
+        Map<String, List<Double>> byTest = new LinkedHashMap<>();
+        try (java.io.Reader r = java.nio.file.Files.newBufferedReader(calibrationCsv);
+             org.apache.commons.csv.CSVParser p = org.apache.commons.csv.CSVFormat.DEFAULT.builder().setHeader()
+                 .setSkipHeaderRecord(true).build().parse(r)) {
+            if (!p.getHeaderNames().equals(List.of("test", "repetition", "p_value"))) {
+                throw new IllegalArgumentException(calibrationCsv + ": not a calibration file (header "
+                    + p.getHeaderNames() + ")");
+            }
+            for (org.apache.commons.csv.CSVRecord rec : p) {
+                String name = rec.get(0);
+                if (!name.startsWith("z ")) {
+                    String label = name.contains("ILLUSTRATION") ? "pooled rounds chi-square (invalid)" : name;
+                    byTest.computeIfAbsent(label, k -> new ArrayList<>()).add(Double.parseDouble(rec.get(2)));
+                }
+            }
+        } catch (java.io.IOException | NumberFormatException e) {
+            throw new IllegalArgumentException(calibrationCsv + ": cannot be read: " + e.getMessage(), e);
+        }
+        List<PValueSample> samples = new ArrayList<>();
+        byTest.forEach((name, ps) -> samples.add(new PValueSample(name, ps.stream().mapToDouble(Double::doubleValue)
+            .toArray())));
+        FigureResult result = Figures.withDefaults().pValueCalibration(directory, "calibration-qq",
+            new CalibrationData("", samples));
+        return new Drawn("calibration", "p-values against uniform quantiles", result);
     }
 
     private static List<Curves.Point> series(List<Curves.Point> pts, String name) {
