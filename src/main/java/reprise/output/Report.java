@@ -110,7 +110,7 @@ public final class Report {
             List<ResultRow> mine = rows.stream().filter(x -> x.caseIndex() == r.c().index()
                 && x.comparison().equals(Comparisons.EXACT)).toList();
             if (r.exact() == null) {
-                sb.append("| ").append(r.c().id()).append(" | no exact prediction: ").append(cell(r.noPrediction()))
+                sb.append("| ").append(r.c().id()).append(" | ").append(cell(r.noPrediction()))
                     .append(" | | | |\n");
                 continue;
             }
