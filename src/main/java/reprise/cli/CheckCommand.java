@@ -153,6 +153,9 @@ final class CheckCommand implements Callable<Integer> {
             nThreads);
         checkpoint.delete();
         RunOutputs.summary(spec.commandLine().getOut(), e, cases.size(), outcome, dir);
+        if (!quiet) {
+            RunOutputs.warnings(err, results, outcome);
+        }
         return code;
     }
 

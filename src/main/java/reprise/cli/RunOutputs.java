@@ -131,6 +131,23 @@ final class RunOutputs {
     }
 
     /**
+     * Prints the run's warnings on stderr: the experiment-level ones in full, the per-case ones as a count
+     * (they are listed in report.md and cases.csv).
+     *
+     * @param err stderr
+     * @param results the case results
+     * @param outcome the outcome
+     */
+    static void warnings(PrintWriter err, List<CaseResult> results, Runner.Outcome outcome) {
+        outcome.warnings().forEach(w -> err.println("reprise check: warning: " + w));
+        long withWarnings = results.stream().filter(r -> !r.warnings().isEmpty()).count();
+        if (withWarnings > 0) {
+            err.printf(Locale.ROOT, "reprise check: %d of %d cases have warnings (listed in report.md)%n", withWarnings,
+                results.size());
+        }
+    }
+
+    /**
      * @param p a file
      * @return its SHA-256 in hex, or null if it cannot be read
      */

@@ -78,6 +78,7 @@ final class SimulateCommand implements Callable<Integer> {
         LongChain.Row[] chain = longChain ? LongChain.rows(r, match, horizon, LONG_CHAIN_CONFIDENCE) : null;
         if (json) {
             ObjectNode o = json(r, match, horizon, s.threads());
+            o.put("burn_in", s.burnIn());
             if (chain != null) {
                 o.set("long_chain", LongChain.json(chain));
             }

@@ -144,6 +144,16 @@ class CheckEndToEndTest {
     }
 
     @Test
+    void warningsAreCountedOnStderrUnlessQuiet() throws IOException {
+        Path file = write("warn.yaml", EXPERIMENT);
+        Result r = run("check", file.toString(), "--out", dir.resolve("warn").toString());
+        assertEquals(0, r.code(), r.err());
+        // noisy tit-for-tat pairs mix in several rounds, long against 20-round games: a guard-rail warning
+        assertTrue(r.err().contains("cases have warnings (listed in report.md)"), r.err());
+        assertTrue(Files.readString(dir.resolve("warn/report.md")).contains("mixing time"));
+    }
+
+    @Test
     void badInputExitsTwoAndWritesNothing() throws IOException {
         Path file = write("bad.yaml", EXPERIMENT.replace("noise: [0.05, 0.1]", "noise: [0.05, 1.1]"));
         Path out = dir.resolve("never");

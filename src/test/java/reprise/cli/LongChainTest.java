@@ -24,7 +24,9 @@ class LongChainTest {
             "400000", "--replicates", "1", "--seed", "3", "--long-chain", "--json", "--quiet"}, new PrintWriter(out),
             new PrintWriter(err));
         assertEquals(0, code, err.toString());
-        JsonNode rows = new ObjectMapper().readTree(out.toString()).get("long_chain");
+        JsonNode all = new ObjectMapper().readTree(out.toString());
+        assertEquals(0, all.get("burn_in").asLong());
+        JsonNode rows = all.get("long_chain");
         assertEquals(6, rows.size());
         JsonNode payoff = rows.get(4);
         assertEquals("payoff_x", payoff.get("quantity").asText());
