@@ -17,19 +17,24 @@ class HorizonTest {
 
     private static final Match NOISY = Support.match("wsls", "memory1:0.9,0.5,0.2,0.1@0.7", new Noise(0.01, 0.03, 0.02, 0));
 
-    // n (f_n - pi) -> (v_1 - pi) Z (Kemeny & Snell 1960, ch. 4: sum_t (v M^t - pi) = (v - pi) Z); the remainder
-    // decays geometrically, so at n = 1e4 the agreement is to rounding, 1e-9 (n times 1e-13).
-    @Test
-    void finiteHorizonApproachesStationaryLikeOneOverN() {
-        MarkovChain chain = MarkovChain.of(NOISY);
-        double[] pi = chain.structure().stationary();
+    /** (v_1 - pi) Z, the limit of both n (f_n - pi) and (f_delta - pi) / (1 - delta). */
+    private static double[] offsetLimit(MarkovChain chain, double[] pi) {
         double[][] z = FundamentalMatrix.fundamental(chain.transitionMatrix(), pi);
         double[] v = chain.initialDistribution();
         double[] d = new double[4];
         for (int i = 0; i < 4; i++) {
             d[i] = v[i] - pi[i];
         }
-        double[] limit = Support.times(d, z);
+        return Support.times(d, z);
+    }
+
+    // n (f_n - pi) -> (v_1 - pi) Z (Kemeny & Snell 1960, ch. 4: sum_t (v M^t - pi) = (v - pi) Z); the remainder
+    // decays geometrically, so at n = 1e4 the agreement is to rounding, 1e-9 (n times 1e-13).
+    @Test
+    void finiteHorizonApproachesStationaryLikeOneOverN() {
+        MarkovChain chain = MarkovChain.of(NOISY);
+        double[] pi = chain.structure().stationary();
+        double[] limit = offsetLimit(chain, pi);
         for (long n : new long[] {10_000, 1_000_000_000L}) {
             double[] f = Frequencies.rounds(chain, 1, n);
             for (int s = 0; s < 4; s++) {
@@ -44,13 +49,7 @@ class HorizonTest {
     void discountedApproachesStationary() {
         MarkovChain chain = MarkovChain.of(NOISY);
         double[] pi = chain.structure().stationary();
-        double[][] z = FundamentalMatrix.fundamental(chain.transitionMatrix(), pi);
-        double[] v = chain.initialDistribution();
-        double[] d = new double[4];
-        for (int i = 0; i < 4; i++) {
-            d[i] = v[i] - pi[i];
-        }
-        double[] limit = Support.times(d, z);
+        double[] limit = offsetLimit(chain, pi);
         double delta = 1 - 1e-6;
         double[] f = Frequencies.continuation(chain, delta, 0);
         for (int s = 0; s < 4; s++) {
