@@ -276,14 +276,14 @@ public final class ExperimentFile {
                 + "stands for each case's continuation probability");
         }
         checkPlaceholders(pairs, parameters, continuation, line(gridNode), problems);
+        if (game != null) {
+            checkStrategies(game, pairs, parameters, horizons, problems);
+        }
         problems.throwIfAny();
 
-        Experiment e = new Experiment(name, description, file, hash, gameText, game, List.copyOf(pairs),
+        return new Experiment(name, description, file, hash, gameText, game, List.copyOf(pairs),
             List.copyOf(noise), List.copyOf(misperception), List.copyOf(horizons), parameters, replicates, seed, alpha,
             tolerance, burnIn, List.copyOf(snapshots), quantities, tests, correction, claims, output);
-        checkStrategies(e, problems);
-        problems.throwIfAny();
-        return e;
     }
 
     /** E[L^2] for a game length L with P(L = k) = (1 - delta) delta^(k-1): (1 + delta) / (1 - delta)^2. */
@@ -313,16 +313,28 @@ public final class ExperimentFile {
         }
     }
 
-    private static void checkStrategies(Experiment e, Problems problems) {
-        List<Map<String, Double>> points = Grid.parameterPoints(e.parameters());
-        for (Experiment.Pair p : e.pairs()) {
+    /**
+     * Parses every strategy spec of every grid point, so that a bad spec is reported with the other
+     * problems of the file; pairs whose placeholders lack a parameter are left to checkPlaceholders.
+     */
+    private static void checkStrategies(StageGame game, List<Experiment.Pair> pairs,
+        Map<String, List<Double>> parameters, List<Horizon> horizons, Problems problems) {
+        List<Map<String, Double>> points = Grid.parameterPoints(parameters);
+        List<Horizon> hs = horizons.isEmpty() ? java.util.Collections.singletonList(null) : horizons;
+        for (Experiment.Pair p : pairs) {
+            boolean defined = Grid.placeholders(p.x() + " " + p.y()).stream()
+                .allMatch(ph -> parameters.containsKey(ph) || ph.equals(Grid.CONTINUATION) && !horizons.isEmpty()
+                    && horizons.get(0) instanceof Horizon.Continuation);
+            if (!defined) {
+                continue;
+            }
             List<String> seen = new ArrayList<>();
             for (Map<String, Double> point : points) {
-                for (Horizon h : e.horizons()) {
+                for (Horizon h : hs) {
                     String xs = Grid.substitute(p.x(), Grid.withHorizon(point, h));
                     String ys = Grid.substitute(p.y(), Grid.withHorizon(point, h));
-                    check(xs, e.game(), Player.X, seen, p, "x", problems);
-                    check(ys, e.game(), Player.Y, seen, p, "y", problems);
+                    check(xs, game, Player.X, seen, p, "x", problems);
+                    check(ys, game, Player.Y, seen, p, "y", problems);
                 }
             }
         }

@@ -7,6 +7,7 @@ import java.util.List;
 final class Problems {
     private final String file;
     private final List<String> lines = new ArrayList<>();
+    private final List<Integer> numbers = new ArrayList<>();
 
     Problems(String file) {
         this.file = file;
@@ -14,19 +15,26 @@ final class Problems {
 
     void add(int line, String field, String message) {
         lines.add(file + (line > 0 ? ":" + line : "") + ": " + field + ": " + message);
+        numbers.add(line);
     }
 
     boolean isEmpty() {
         return lines.isEmpty();
     }
 
+    /** @return the problems in file order (problems without a line first), in the order found within a line */
     List<String> lines() {
-        return List.copyOf(lines);
+        List<Integer> order = new ArrayList<>();
+        for (int i = 0; i < lines.size(); i++) {
+            order.add(i);
+        }
+        order.sort(java.util.Comparator.comparingInt(numbers::get));
+        return order.stream().map(lines::get).toList();
     }
 
     void throwIfAny() {
         if (!lines.isEmpty()) {
-            throw new InvalidExperimentException(lines);
+            throw new InvalidExperimentException(lines());
         }
     }
 

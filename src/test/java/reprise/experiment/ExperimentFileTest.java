@@ -140,6 +140,18 @@ class ExperimentFileTest {
     }
 
     @Test
+    void everyProblemIsReportedAtOnceInFileOrder() throws IOException {
+        Path p = write("many.yaml", VALID.replace("y: gtft", "y: gtfx").replace("rounds: [50, 200]", "rounds: [0]")
+            + "repliactes: 3\n");
+        InvalidExperimentException e = assertThrows(InvalidExperimentException.class, () -> ExperimentFile.read(p));
+        List<String> lines = e.problems();
+        assertEquals(3, lines.size(), String.join("\n", lines));
+        assertTrue(lines.get(0).contains(":5: pairs.keepers.y: unknown strategy 'gtfx'"), lines.get(0));
+        assertTrue(lines.get(1).contains(":11: grid.rounds: must be at least 1"), lines.get(1));
+        assertTrue(lines.get(2).contains(":17: repliactes: unknown key"), lines.get(2));
+    }
+
+    @Test
     void claimsMatchGridPointsAndRefuseStrayRows() throws IOException {
         Experiment e = ExperimentFile.read(write("ok.yaml", VALID));
         List<Case> cases = e.cases();
