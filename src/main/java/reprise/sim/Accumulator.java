@@ -50,16 +50,29 @@ final class Accumulator {
         System.arraycopy(states, 0, before, 0, 4);
     }
 
+    /** Ends the game begun by {@link #beginGame()}: its state counts are the growth of {@link #states}. */
     void endGame(long length) {
+        long[] n = before;
+        for (int s = 0; s < 4; s++) {
+            n[s] = states[s] - n[s];
+        }
+        recordGame(length, n);
+    }
+
+    /**
+     * Adds one game's per-game statistics (not its rounds: those are in {@link #states} already).
+     *
+     * @param length the game's length
+     * @param n its tallied rounds per state
+     */
+    void recordGame(long length, long[] n) {
         games = Math.addExact(games, 1);
         lengthSum = Math.addExact(lengthSum, length);
         lengthMin = Math.min(lengthMin, length);
         lengthMax = Math.max(lengthMax, length);
         Wide.addProduct(lengthSquares, 0, length, length);
-        long[] n = before;
         long tallied = 0;
         for (int s = 0; s < 4; s++) {
-            n[s] = states[s] - n[s];
             tallied += n[s];
         }
         if (tallied == 0) {
@@ -81,6 +94,36 @@ final class Accumulator {
                     }
                 }
             }
+        }
+    }
+
+    /**
+     * Adds the per-game statistics of games that all have the same length and the same number of
+     * tallied rounds (a fixed horizon); the same sums as {@link #recordGame} once per game.
+     *
+     * @param count the number of games, at least 1
+     * @param length their length
+     * @param tallied their tallied rounds each
+     * @param stateSums the sum over the games of their tallied rounds per state
+     * @param pairSums index 4 s + r: the sum over the games of N_s N_r, each at least 0 (no overflow)
+     */
+    void recordGames(long count, long length, long tallied, long[] stateSums, long[] pairSums) {
+        games = Math.addExact(games, count);
+        lengthSum = Math.addExact(lengthSum, Math.multiplyExact(count, length));
+        lengthMin = Math.min(lengthMin, length);
+        lengthMax = Math.max(lengthMax, length);
+        Wide.addProduct(lengthSquares, 0, Math.multiplyExact(count, length), length);
+        if (tallied == 0) {
+            return;
+        }
+        gamesTallied = Math.addExact(gamesTallied, count);
+        talliedSum = Math.addExact(talliedSum, Math.multiplyExact(count, tallied));
+        Wide.addProduct(talliedSquares, 0, Math.multiplyExact(count, tallied), tallied);
+        for (int s = 0; s < 4; s++) {
+            Wide.addProduct(lengthStateSums, s, tallied, stateSums[s]);
+        }
+        for (int i = 0; i < 16; i++) {
+            Wide.add(productSums, i, 0, pairSums[i]);
         }
     }
 

@@ -1,9 +1,5 @@
 package reprise.sim;
 
-import reprise.game.MemoryStrategy;
-import reprise.game.Noise;
-import reprise.game.State;
-
 /**
  * The fast path for two memory-one players (reactive strategies included): one 64-bit draw per round.
  *
@@ -32,38 +28,21 @@ final class FusedMemoryOneKernel extends Kernel {
     /** Padding (in longs) either side of the transition counters, two 64-byte cache lines. */
     private static final int PAD = 16;
 
-    private final long[] limitX = new long[4];
-    private final long[] limitY = new long[4];
-    private final long firstX;
-    private final long firstY;
+    private final long[] limitX;
+    private final long[] limitY;
+    private final long firstLimitX;
+    private final long firstLimitY;
     /** Transitions of the current call at PAD + 4 previous + current; zero between calls. */
     private final long[] transitions = new long[16 + 2 * PAD];
     private int state;
     private boolean fresh;
 
-    FusedMemoryOneKernel(Plan plan, Accumulator acc, MemoryStrategy x, MemoryStrategy y, Noise noise) {
+    FusedMemoryOneKernel(Plan plan, Accumulator acc, FusedTables tables) {
         super(plan, acc);
-        double ex = noise.executionX();
-        double ey = noise.executionY();
-        double hx = noise.perceptionX();
-        double hy = noise.perceptionY();
-        for (int s = 0; s < 4; s++) {
-            double qx = (1 - hx) * x.cooperation(s) + hx * x.cooperation(s ^ 1);
-            int m = State.mirror(s);
-            double qy = (1 - hy) * y.cooperation(m) + hy * y.cooperation(m ^ 1);
-            limitX[s] = threshold(execute(qx, ex)) - 1;
-            limitY[s] = threshold(execute(qy, ey)) - 1;
-        }
-        firstX = threshold(execute(x.initial(), ex));
-        firstY = threshold(execute(y.initial(), ey));
-    }
-
-    static double execute(double intended, double e) {
-        return (1 - e) * intended + e * (1 - intended);
-    }
-
-    static long threshold(double p) {
-        return Math.max(0, Math.min(1L << 32, Math.round(p * 0x1p32)));
+        limitX = tables.limitX().clone();
+        limitY = tables.limitY().clone();
+        firstLimitX = tables.firstLimitX();
+        firstLimitY = tables.firstLimitY();
     }
 
     @Override
@@ -88,7 +67,7 @@ final class FusedMemoryOneKernel extends Kernel {
             s1 ^= s0;
             s0 = Long.rotateLeft(s0, 49) ^ s1 ^ (s1 << 21);
             s1 = Long.rotateLeft(s1, 28);
-            int ns = ((r >>> 32) < firstX ? 0 : 2) | ((r & 0xFFFFFFFFL) < firstY ? 0 : 1);
+            int ns = (int) (((firstLimitX - (r >>> 32)) >>> 63) << 1) | (int) ((firstLimitY - (r & 0xFFFFFFFFL)) >>> 63);
             if ((mode & TALLY) != 0) {
                 counts[ns]++;
             }

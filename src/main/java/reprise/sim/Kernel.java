@@ -5,7 +5,7 @@ package reprise.sim;
  * segments of rounds with the same bookkeeping (burn-in, first tallied round, time-resolved rounds,
  * snapshot rounds) so that the subclasses' round loops test only loop-invariant mode bits.
  */
-abstract class Kernel {
+abstract class Kernel extends Worker {
     /** Count the round's state. */
     static final int TALLY = 1;
     /** Count the step from the previous true history to this round's state. */
@@ -14,14 +14,13 @@ abstract class Kernel {
     static final int TIME = 4;
 
     final ReplicateStream rng = new ReplicateStream();
-    final Accumulator acc;
     final Plan plan;
     /** True state (X's view) of the last round played, set by {@link #play}. */
     int lastState;
 
     Kernel(Plan plan, Accumulator acc) {
+        super(acc);
         this.plan = plan;
-        this.acc = acc;
     }
 
     /** Resets the players' records for a new game. */
@@ -36,7 +35,7 @@ abstract class Kernel {
      */
     abstract void play(long count, int mode, long offset);
 
-    /** Plays the replicates [from, to). */
+    @Override
     final long run(long from, long to) {
         long rounds = 0;
         for (long i = from; i < to; i++) {

@@ -42,6 +42,9 @@ public final class Simulator {
     /** The generator of every replicate stream, as a Commons RNG {@code RandomSource} name. */
     public static final String GENERATOR = "XO_RO_SHI_RO_128_PP";
 
+    /** Fewest games per chunk for which the fused path plays games in lockstep blocks. */
+    static final long LOCKSTEP_MIN_GAMES = 32;
+
     /** Rounds aimed at per chunk of replicates (the chunk size depends only on the spec). */
     private static final double ROUNDS_PER_CHUNK = 1 << 23;
 
@@ -161,16 +164,15 @@ public final class Simulator {
                 + ": [" + from + ", " + to + ")");
         }
         long count = to - from;
-        long chunk = chunkReplicates > 0 ? chunkReplicates : (long) Math.max(1, Math.min(1 << 20,
-            Math.floor(ROUNDS_PER_CHUNK / spec.horizon().expectedLength())));
+        long chunk = chunkSize();
         long chunks = (count + chunk - 1) / chunk;
         int workers = (int) Math.min(spec.threads(), chunks);
         double expected = count * spec.horizon().expectedLength();
         Progress progress = new Progress(listener, count, expected >= 0x1p63 ? Long.MAX_VALUE : (long) expected);
         AtomicLong nextChunk = new AtomicLong();
-        List<Kernel> kernels = new ArrayList<>();
+        List<Worker> kernels = new ArrayList<>();
         for (int w = 0; w < workers; w++) {
-            kernels.add(kernel());
+            kernels.add(worker(chunk));
         }
         if (workers == 1) {
             work(kernels.get(0), nextChunk, chunks, chunk, from, to, progress);
@@ -182,7 +184,7 @@ public final class Simulator {
             });
             try {
                 List<Future<?>> futures = new ArrayList<>();
-                for (Kernel k : kernels) {
+                for (Worker k : kernels) {
                     futures.add(pool.submit(() -> work(k, nextChunk, chunks, chunk, from, to, progress)));
                 }
                 for (Future<?> f : futures) {
@@ -212,7 +214,12 @@ public final class Simulator {
             spec.match().game().payoffY(), List.of(new SimulationResult.ReplicateRange(from, to)), total);
     }
 
-    private static void work(Kernel k, AtomicLong nextChunk, long chunks, long chunk, long from, long to,
+    private long chunkSize() {
+        return chunkReplicates > 0 ? chunkReplicates : (long) Math.max(1, Math.min(1 << 20,
+            Math.floor(ROUNDS_PER_CHUNK / spec.horizon().expectedLength())));
+    }
+
+    private static void work(Worker k, AtomicLong nextChunk, long chunks, long chunk, long from, long to,
         Progress progress) {
         for (long c = nextChunk.getAndIncrement(); c < chunks; c = nextChunk.getAndIncrement()) {
             if (Thread.currentThread().isInterrupted()) {
@@ -225,16 +232,53 @@ public final class Simulator {
         }
     }
 
-    private Kernel kernel() {
+    /**
+     * The engine of one worker. On the fused path with a fixed horizon and chunks of at least
+     * {@link #LOCKSTEP_MIN_GAMES} games, the games of a chunk are played in lockstep blocks
+     * ({@link LockstepKernel}, the same draws and decisions as the per-game fused kernel, so the choice
+     * changes speed only).
+     */
+    private Worker worker(long chunk) {
         Match m = spec.match();
         Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
         if (fast) {
-            return new FusedMemoryOneKernel(plan, acc, (MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise());
+            FusedTables t = FusedTables.of((MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise());
+            if (plan.fixedRounds() > 0 && chunk >= LOCKSTEP_MIN_GAMES) {
+                return new LockstepKernel(plan, acc, t);
+            }
+            return new FusedMemoryOneKernel(plan, acc, t);
         }
         if (tables) {
             return new LiteralTableKernel(plan, acc, (MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise());
         }
         return new AgentKernel(plan, acc, Agents.create(m.x()), Agents.create(m.y()), m.noise());
+    }
+
+    /** Whether a run of all replicates plays games in lockstep blocks (a testing hook). */
+    boolean playsInLockstep() {
+        return fast && plan.fixedRounds() > 0 && chunkSize() >= LOCKSTEP_MIN_GAMES;
+    }
+
+    /** Testing hook: the lockstep kernel on one thread, with a limit for per-block statistics. */
+    SimulationResult simulateLockstep(long from, long to, long blockStatisticsLength) {
+        Match m = spec.match();
+        Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
+        Worker k = new LockstepKernel(plan, acc,
+            FusedTables.of((MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise()), blockStatisticsLength);
+        k.run(from, to);
+        return new SimulationResult(configuration, spec.seed(), fast, m.game().payoffX(), m.game().payoffY(),
+            List.of(new SimulationResult.ReplicateRange(from, to)), acc);
+    }
+
+    /** Testing hook: the per-game fused kernel on one thread, whatever the horizon and chunking. */
+    SimulationResult simulatePerGame(long from, long to) {
+        Match m = spec.match();
+        Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
+        Kernel k = new FusedMemoryOneKernel(plan, acc,
+            FusedTables.of((MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise()));
+        k.run(from, to);
+        return new SimulationResult(configuration, spec.seed(), fast, m.game().payoffX(), m.game().payoffY(),
+            List.of(new SimulationResult.ReplicateRange(from, to)), acc);
     }
 
     /** Testing hook: the generic agent kernel even for table players (same draws as the table kernel). */

@@ -54,7 +54,7 @@ class EventCodeTest {
     @ParameterizedTest
     @MethodSource("probabilities")
     void fusedDecisionIsTheThresholdComparison(double c) {
-        long threshold = FusedMemoryOneKernel.threshold(c);
+        long threshold = FusedTables.threshold(c);
         long limit = threshold - 1;
         for (long u : new long[] {0, 1, threshold - 1, threshold, threshold + 1, 0xFFFFFFFFL}) {
             if (u < 0 || u > 0xFFFFFFFFL) {

@@ -1,0 +1,103 @@
+package reprise.sim;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.Locale;
+import java.util.stream.Stream;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+import reprise.game.Horizon;
+import reprise.game.Noise;
+
+/**
+ * The lockstep kernel is the per-game fused kernel played in another order: for every spec it must give
+ * exactly the same tallies (an identity of integer sums, not a statistical agreement). The cases cover
+ * random memory-one and reactive players with probabilities 0 and 1 among them, both noise kinds, game
+ * lengths on either side of the 15- and 255-round counter spills, burn-in from none to all rounds but the last,
+ * snapshots, time-resolved rounds, and replicate counts that leave a partial block. The per-game fused
+ * kernel is itself checked against the exact engine and the literal path elsewhere.
+ */
+class LockstepTest {
+    private static final long[] LENGTHS = {1, 2, 14, 15, 16, 17, 30, 254, 255, 256, 257, 271, 530};
+
+    static Stream<Arguments> cases() {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(20261201L);
+        Stream.Builder<Arguments> b = Stream.builder();
+        for (int c = 0; c < 26; c++) {
+            long n = LENGTHS[c % LENGTHS.length];
+            long burnIn = switch (c % 5) {
+                case 0 -> 0;
+                case 1 -> 1;
+                case 2 -> Math.max(0, n - 1);
+                case 3 -> n / 2;
+                default -> n / 3;
+            };
+            Noise noise = new Noise(pick(rng, 0.1), pick(rng, 0.1), pick(rng, 0.2), pick(rng, 0.2));
+            int replicates = 1 + rng.nextInt(700);
+            b.add(Arguments.of(c, strategy(rng), strategy(rng), noise, n, burnIn, replicates));
+        }
+        return b.build();
+    }
+
+    private static double pick(UniformRandomProvider rng, double max) {
+        return rng.nextInt(3) == 0 ? 0 : rng.nextDouble() * max;
+    }
+
+    private static String strategy(UniformRandomProvider rng) {
+        String[] named = {"wsls", "tft", "grim", "alld", "allc", "gtft", "random"};
+        if (rng.nextInt(3) == 0) {
+            return named[rng.nextInt(named.length)];
+        }
+        StringBuilder sb = new StringBuilder(rng.nextBoolean() ? "memory1:" : "reactive:");
+        int k = sb.charAt(0) == 'm' ? 4 : 2;
+        for (int i = 0; i < k; i++) {
+            int kind = rng.nextInt(4);
+            double p = kind == 0 ? 0 : kind == 1 ? 1 : rng.nextDouble();
+            sb.append(i > 0 ? "," : "").append(String.format(Locale.ROOT, "%.6f", p));
+        }
+        if (sb.charAt(0) == 'r') {
+            sb.append(String.format(Locale.ROOT, "@%.6f", rng.nextDouble()));
+        }
+        return sb.toString();
+    }
+
+    @ParameterizedTest(name = "case {0}: {1} vs {2}, n = {4}, burn-in {5}, {6} games")
+    @MethodSource("cases")
+    void lockstepEqualsPerGameFusedKernel(int c, String x, String y, Noise noise, long n, long burnIn,
+        int replicates) {
+        long[] snaps = n >= 3 ? new long[] {1, (n + 1) / 2, n} : new long[] {n};
+        SimulationSpec spec = SimulationSpec.of(DeterminismTest.match(x, y, noise), Horizon.rounds(n), replicates,
+            700 + c).withBurnIn(burnIn).withSnapshots(snaps).withTimeResolved((int) Math.min(n, 40));
+        SimulationResult perGame = new Simulator(spec).simulatePerGame(0, replicates);
+        Simulator lockstep = new Simulator(spec.withThreads(2), 97);
+        assertTrue(lockstep.playsInLockstep());
+        assertEquals(perGame, lockstep.run(), "lockstep on 2 threads, chunks of 97 games");
+        assertEquals(perGame, new Simulator(spec.withThreads(1)).run(), "default chunks, 1 thread");
+        assertEquals(perGame, lockstep.simulateLockstep(0, replicates, 0), "per-game statistics branch");
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("notLockstep")
+    void otherSpecsKeepTheirKernels(String name, SimulationSpec spec, long chunk) {
+        assertFalse(new Simulator(spec, chunk).playsInLockstep(), name);
+    }
+
+    static Stream<Arguments> notLockstep() {
+        return Stream.of(
+            Arguments.of("geometric horizon", SimulationSpec.of(DeterminismTest.match("wsls", "tft", Noise.symmetric(0.01,
+                0)), Horizon.continuation(0.9), 1000, 1), 0L),
+            Arguments.of("memory-two player", SimulationSpec.of(DeterminismTest.match("tf2t", "tft", Noise.symmetric(0.01,
+                0)), Horizon.rounds(20), 1000, 1), 0L),
+            Arguments.of("literal enactment", SimulationSpec.of(DeterminismTest.match("wsls", "tft", Noise.symmetric(0.01,
+                0)), Horizon.rounds(20), 1000, 1).withEnactment(Enactment.LITERAL), 0L),
+            Arguments.of("chunks of few long games", SimulationSpec.of(DeterminismTest.match("wsls", "tft",
+                Noise.symmetric(0.01, 0)), Horizon.rounds(1_000_000), 100, 1), 0L),
+            Arguments.of("small test chunks", SimulationSpec.of(DeterminismTest.match("wsls", "tft",
+                Noise.symmetric(0.01, 0)), Horizon.rounds(20), 1000, 1), 31L));
+    }
+}
