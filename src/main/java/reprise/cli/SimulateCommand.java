@@ -42,7 +42,7 @@ final class SimulateCommand implements Callable<Integer> {
     boolean json;
 
     @Option(names = "--long-chain", description = "For one long game (--replicates 1 --rounds N, no burn-in): "
-        + "95% intervals of each state frequency and payoff by batch means (batch size floor(sqrt(N))) beside "
+        + "95%% intervals of each state frequency and payoff by batch means (batch size floor(sqrt(N))) beside "
         + "those from the exact asymptotic variance.")
     boolean longChain;
 
