@@ -171,10 +171,8 @@ public final class Simulator {
         Progress progress = new Progress(listener, count, expected >= 0x1p63 ? Long.MAX_VALUE : (long) expected);
         AtomicLong nextChunk = new AtomicLong();
         List<Worker> kernels = new ArrayList<>();
-        for (int w = 0; w < workers; w++) {
-            kernels.add(worker(chunk));
-        }
         if (workers == 1) {
+            kernels.add(worker(chunk));
             work(kernels.get(0), nextChunk, chunks, chunk, from, to, progress);
         } else {
             ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
@@ -183,12 +181,18 @@ public final class Simulator {
                 return t;
             });
             try {
-                List<Future<?>> futures = new ArrayList<>();
-                for (Worker k : kernels) {
-                    futures.add(pool.submit(() -> work(k, nextChunk, chunks, chunk, from, to, progress)));
+                // each worker allocates its own kernel, so that the hot arrays of two workers lie in
+                // different threads' allocation buffers, never on a shared cache line
+                List<Future<Worker>> futures = new ArrayList<>();
+                for (int w = 0; w < workers; w++) {
+                    futures.add(pool.submit(() -> {
+                        Worker k = worker(chunk);
+                        work(k, nextChunk, chunks, chunk, from, to, progress);
+                        return k;
+                    }));
                 }
-                for (Future<?> f : futures) {
-                    f.get();
+                for (Future<Worker> f : futures) {
+                    kernels.add(f.get());
                 }
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
