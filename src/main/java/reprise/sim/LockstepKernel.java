@@ -58,7 +58,9 @@ final class LockstepKernel extends Worker {
     private final long[] word0 = new long[LANES];
     private final long[] word1 = new long[LANES];
     /** This round's output of each lane's generator. */
-    private final long[] draws = new long[LANES];
+    private long[] draws = new long[LANES];
+    /** The next round's, when {@link #drawn}. */
+    private long[] ahead = new long[LANES];
     private long[] lastX = new long[LANES];
     private long[] lastY = new long[LANES];
     private long[] nextX = new long[LANES];
@@ -71,8 +73,12 @@ final class LockstepKernel extends Worker {
     /** The state of each lane's first tallied round, or -1. */
     private final int[] firstState = new int[LANES];
     private final ReplicateStream seeder = new ReplicateStream();
-    private final Pass[] countedRound = {new Draw(), new Decide(), new Count()};
-    private final Pass[] uncountedRound = {countedRound[0], countedRound[1]};
+    private final Pass[] drawCountRound = {new Draw(), new Decide(), new Count()};
+    private final Pass[] drawDecideRound = {drawCountRound[0], drawCountRound[1]};
+    private final Pass[] countRound = {drawCountRound[1], drawCountRound[2]};
+    private final Pass[] decideRound = {drawCountRound[1]};
+    /** Whether {@code ahead} holds every lane's draw for the next round. */
+    private boolean drawn;
     private final long[] gameCounts = new long[4];
     private final long[] blockSteps = new long[16];
     private final long[] stateSums = new long[4];
@@ -178,7 +184,8 @@ final class LockstepKernel extends Worker {
     }
 
     private void firstRound(int lanes) {
-        countedRound[0].run(lanes);
+        drawCountRound[0].run(lanes);
+        drawn = true;
         final long[] d = draws;
         final long[] mx = lastX;
         final long[] my = lastY;
@@ -204,7 +211,17 @@ final class LockstepKernel extends Worker {
      * runs (half the speed). The call costs a few nanoseconds per stage of 256 lanes.
      */
     private void playRound(int lanes, boolean counted) {
-        Pass[] stages = counted ? countedRound : uncountedRound;
+        Pass[] stages;
+        if (drawn) {
+            long[] swap = draws;
+            draws = ahead;
+            ahead = swap;
+            drawn = false;
+            stages = counted ? countRound : decideRound;
+        } else {
+            drawn = true;
+            stages = counted ? drawCountRound : drawDecideRound;
+        }
         for (Pass p : stages) {
             p.run(lanes);
         }
@@ -216,17 +233,26 @@ final class LockstepKernel extends Worker {
         nextY = swap;
     }
 
-    /** Steps every lane's generator once, keeping the output in {@code draws}. */
+    /**
+     * Steps every lane's generator twice: the first output goes to {@code draws} (this round), the second
+     * to {@code ahead} (the next round, which then skips this stage). Two steps per pass load and store
+     * the generator words half as often.
+     */
     private final class Draw implements Pass {
         @Override
         public void run(int lanes) {
             final long[] a = word0;
             final long[] b = word1;
             final long[] d = draws;
+            final long[] e = ahead;
             for (int j = 0; j < lanes; j++) {
                 long p = a[j];
                 long q = b[j];
                 d[j] = Long.rotateLeft(p + q, 17) + p;
+                q ^= p;
+                p = Long.rotateLeft(p, 49) ^ q ^ (q << 21);
+                q = Long.rotateLeft(q, 28);
+                e[j] = Long.rotateLeft(p + q, 17) + p;
                 q ^= p;
                 a[j] = Long.rotateLeft(p, 49) ^ q ^ (q << 21);
                 b[j] = Long.rotateLeft(q, 28);
