@@ -68,8 +68,12 @@ final class LockstepKernel extends Worker {
     private final long[] nibbles = new long[LANES];
     private final long[] evenBytes = new long[LANES];
     private final long[] oddBytes = new long[LANES];
-    /** Index 16 j + 4 s + s': lane j's counted transitions from s to s'. */
+    /**
+     * Index 16 j + 4 s + s': lane j's counted transitions from s to s' spilled from its 8-bit counters
+     * (only in games of more than 255 counted rounds); the rest are still in the 8-bit counters.
+     */
     private final long[] laneSteps = new long[16 * LANES];
+    private boolean laneStepsUsed;
     /** The state of each lane's first tallied round, or -1. */
     private final int[] firstState = new int[LANES];
     private final ReplicateStream seeder = new ReplicateStream();
@@ -126,8 +130,9 @@ final class LockstepKernel extends Worker {
     }
 
     private void playBlock(long start, int lanes) {
+        long seedBase = ReplicateStream.mix64(plan.seed());
         for (int j = 0; j < lanes; j++) {
-            seeder.seed(plan.seed(), start + j);
+            seeder.seedFromBase(seedBase, start + j);
             word0[j] = seeder.state0;
             word1[j] = seeder.state1;
             nibbles[j] = 0;
@@ -135,7 +140,10 @@ final class LockstepKernel extends Worker {
             oddBytes[j] = 0;
             firstState[j] = -1;
         }
-        java.util.Arrays.fill(laneSteps, 0, 16 * lanes, 0);
+        if (laneStepsUsed) {
+            java.util.Arrays.fill(laneSteps, 0);
+            laneStepsUsed = false;
+        }
         nibbleLoad = 0;
         byteLoad = 0;
         long n = plan.fixedRounds();
@@ -174,7 +182,6 @@ final class LockstepKernel extends Worker {
             }
         }
         spillNibbles(lanes);
-        spillBytes(lanes);
         finishBlock(lanes, n);
     }
 
@@ -336,6 +343,7 @@ final class LockstepKernel extends Worker {
         if (byteLoad == 0) {
             return;
         }
+        laneStepsUsed = true;
         for (int j = 0; j < lanes; j++) {
             long even = evenBytes[j];
             long odd = oddBytes[j];
@@ -363,10 +371,15 @@ final class LockstepKernel extends Worker {
                 g[firstState[j]] = 1;
             }
             int base = 16 * j;
-            for (int i = 0; i < 16; i++) {
-                long m = laneSteps[base + i];
-                g[i & 3] += m;
-                sums[i] += m;
+            long even = evenBytes[j];
+            long odd = oddBytes[j];
+            for (int f = 0; f < 8; f++) {
+                long me = ((even >>> (8 * f)) & 0xFF) + (laneStepsUsed ? laneSteps[base + 2 * f] : 0);
+                long mo = ((odd >>> (8 * f)) & 0xFF) + (laneStepsUsed ? laneSteps[base + 2 * f + 1] : 0);
+                g[(2 * f) & 3] += me;
+                g[(2 * f + 1) & 3] += mo;
+                sums[2 * f] += me;
+                sums[2 * f + 1] += mo;
             }
             if (perGame) {
                 addCounts(g);

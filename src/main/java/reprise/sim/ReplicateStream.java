@@ -29,7 +29,11 @@ final class ReplicateStream implements UniformRandomProvider {
     }
 
     void seed(long masterSeed, long replicate) {
-        long base = mix64(masterSeed);
+        seedFromBase(mix64(masterSeed), replicate);
+    }
+
+    /** As {@link #seed}, given base = mix64(masterSeed). */
+    void seedFromBase(long base, long replicate) {
         state0 = mix64(base + (2 * replicate + 1) * GOLDEN);
         state1 = mix64(base + (2 * replicate + 2) * GOLDEN);
         if ((state0 | state1) == 0) {

@@ -25,8 +25,10 @@ import reprise.game.Strategy;
  * exactly n rounds; a continuation probability delta gives each game its own geometric length
  * N = 1 + floor(ln U / ln delta), so P(N &gt; t) = delta^t (one draw, the first of the game's stream).
  * Two memory-one players take a fused, equally distributed fast path unless {@link Enactment#LITERAL}
- * is asked for (see {@code FusedMemoryOneKernel}); everything else takes the literal path with one
- * draw per uncertain event.
+ * is asked for (see {@code FusedMemoryOneKernel}); with a fixed horizon the games of a chunk are then
+ * played in lockstep blocks ({@code LockstepKernel}: the same draws and decisions, so the same results,
+ * compiled to SIMD instructions). Everything else takes the literal path with one draw per uncertain
+ * event.
  *
  * <p>Reproducibility: game i is a function of (seed, i) only (see {@link #replicateGenerator}). Work is
  * cut into chunks of consecutive replicate indexes whose boundaries depend only on the spec; workers
