@@ -52,6 +52,12 @@ final class LockstepKernel extends Worker {
     private final long limitY1;
     private final long limitY2;
     private final long limitY3;
+    /** Packed selection coefficients of {@link DecidePacked}, when {@link #packs()}. */
+    private final long packed0;
+    private final long packed1;
+    private final long packed2;
+    private final long packed3;
+    private final boolean packs;
     private final long firstX;
     private final long firstY;
 
@@ -77,10 +83,10 @@ final class LockstepKernel extends Worker {
     /** The state of each lane's first tallied round, or -1. */
     private final int[] firstState = new int[LANES];
     private final ReplicateStream seeder = new ReplicateStream();
-    private final Pass[] drawCountRound = {new Draw(), new Decide(), new Count()};
-    private final Pass[] drawDecideRound = {drawCountRound[0], drawCountRound[1]};
-    private final Pass[] countRound = {drawCountRound[1], drawCountRound[2]};
-    private final Pass[] decideRound = {drawCountRound[1]};
+    private final Pass[] drawCountRound;
+    private final Pass[] drawDecideRound;
+    private final Pass[] countRound;
+    private final Pass[] decideRound;
     /** Whether {@code ahead} holds every lane's draw for the next round. */
     private boolean drawn;
     private final long[] gameCounts = new long[4];
@@ -114,8 +120,31 @@ final class LockstepKernel extends Worker {
         limitY1 = ly[1] - ly[0];
         limitY2 = ly[2] - ly[0];
         limitY3 = ly[3] - ly[2] - ly[1] + ly[0];
+        boolean nonNegative = true;
+        long[] w = new long[4];
+        for (int k = 0; k < 4; k++) {
+            nonNegative &= lx[k] >= 0 && ly[k] >= 0;
+            w[k] = (lx[k] << 32) + ly[k];
+        }
+        packs = nonNegative;
+        packed0 = w[0];
+        packed1 = w[1] - w[0];
+        packed2 = w[2] - w[0];
+        packed3 = w[3] - w[2] - w[1] + w[0];
+        Pass draw = new Draw();
+        Pass decide = packs ? new DecidePacked() : new Decide();
+        Pass count = new Count();
+        drawCountRound = new Pass[] {draw, decide, count};
+        drawDecideRound = new Pass[] {draw, decide};
+        countRound = new Pass[] {decide, count};
+        decideRound = new Pass[] {decide};
         firstX = tables.firstLimitX();
         firstY = tables.firstLimitY();
+    }
+
+    /** Whether both players' limits fit in 32 unsigned bits, so that {@link DecidePacked} applies. */
+    boolean packs() {
+        return packs;
     }
 
     @Override
@@ -292,6 +321,35 @@ final class LockstepKernel extends Worker {
                 long ly = b0 + (my & b1) + (mx & (b2 + (my & b3)));
                 nx[j] = (lx - (r >>> 32)) >> 63;
                 ny[j] = (ly - (r & LOW32)) >> 63;
+            }
+        }
+    }
+
+    /**
+     * {@link Decide} for players whose limits are all at least 0 (every folded cooperation probability
+     * above 2^-33, as with any execution error): each limit then fits in 32 unsigned bits, so X's and Y's
+     * limits of a state are packed as X 2^32 + Y and one selection serves both players. The selection
+     * adds 64-bit differences of packed words, exact modulo 2^64, so it yields the packed word itself.
+     */
+    private final class DecidePacked implements Pass {
+        @Override
+        public void run(int lanes) {
+            final long[] d = draws;
+            final long[] px = lastX;
+            final long[] py = lastY;
+            final long[] nx = nextX;
+            final long[] ny = nextY;
+            final long c0 = packed0;
+            final long c1 = packed1;
+            final long c2 = packed2;
+            final long c3 = packed3;
+            for (int j = 0; j < lanes; j++) {
+                long r = d[j];
+                long mx = px[j];
+                long my = py[j];
+                long w = c0 + (my & c1) + (mx & (c2 + (my & c3)));
+                nx[j] = ((w >>> 32) - (r >>> 32)) >> 63;
+                ny[j] = ((w & LOW32) - (r & LOW32)) >> 63;
             }
         }
     }

@@ -8,10 +8,13 @@ import java.util.Locale;
 import java.util.stream.Stream;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import reprise.game.Horizon;
+import reprise.game.Match;
+import reprise.game.MemoryStrategy;
 import reprise.game.Noise;
 
 /**
@@ -19,7 +22,8 @@ import reprise.game.Noise;
  * exactly the same tallies (an identity of integer sums, not a statistical agreement). The cases cover
  * random memory-one and reactive players with probabilities 0 and 1 among them, both noise kinds, game
  * lengths on either side of the 15- and 255-round counter spills, burn-in from none to all rounds but the last,
- * snapshots, time-resolved rounds, and replicate counts that leave a partial block. The per-game fused
+ * snapshots, time-resolved rounds, replicate counts that leave a partial block, and both ways of
+ * selecting the limits (packed when every limit fits in 32 bits, and not). The per-game fused
  * kernel is itself checked against the exact engine and the literal path elsewhere.
  */
 class LockstepTest {
@@ -41,6 +45,9 @@ class LockstepTest {
             int replicates = 1 + rng.nextInt(700);
             b.add(Arguments.of(c, strategy(rng), strategy(rng), noise, n, burnIn, replicates));
         }
+        // one case for each way of selecting the limits: packed (every limit >= 0) and not
+        b.add(Arguments.of(26, "wsls", "tft", Noise.symmetric(0.01, 0), 200L, 0L, 600));
+        b.add(Arguments.of(27, "tft", "grim", Noise.symmetric(0, 0.05), 90L, 2L, 300));
         return b.build();
     }
 
@@ -79,6 +86,21 @@ class LockstepTest {
         assertEquals(perGame, lockstep.run(), "lockstep on 2 threads, chunks of 97 games");
         assertEquals(perGame, new Simulator(spec.withThreads(1)).run(), "default chunks, 1 thread");
         assertEquals(perGame, lockstep.simulateLockstep(0, replicates, 0), "per-game statistics branch");
+    }
+
+    @Test
+    void limitsArePackedExactlyWhenEveryLimitFitsIn32Bits() {
+        assertTrue(kernel("wsls", "tft", Noise.symmetric(0.01, 0)).packs(), "execution error: no limit is -1");
+        assertFalse(kernel("tft", "grim", Noise.symmetric(0, 0.05)).packs(),
+            "without execution error grim never cooperates after mutual defection");
+        assertFalse(kernel("allc", "alld", Noise.symmetric(0, 0)).packs());
+    }
+
+    private static LockstepKernel kernel(String x, String y, Noise noise) {
+        Match m = DeterminismTest.match(x, y, noise);
+        Plan plan = new Plan(1, 10, 0, 0, new long[0], 0);
+        return new LockstepKernel(plan, new Accumulator(1, new long[0], 0), FusedTables.of(
+            (MemoryStrategy) m.x(), (MemoryStrategy) m.y(), noise));
     }
 
     @ParameterizedTest(name = "{0}")
