@@ -8,25 +8,29 @@ package reprise.sim;
  * differs.
  *
  * <p>Implementation note. Games are laid out one per array slot ("lane"): the two generator words, and
- * each player's last move as a mask (0 cooperated, -1 defected). A round is two loops over the lanes
- * without branches, calls or cross-lane dependencies, which the JIT compiles to SIMD instructions; a
+ * each player's last move as a mask (0 cooperated, -1 defected). A round is up to three loops over the
+ * lanes without branches, calls or cross-lane dependencies, which the JIT compiles to SIMD instructions; a
  * single game's round loop cannot be, because each round depends on the last.
  * <ol>
- * <li>Decide: step the XoRoShiRo128++ words, then pick the limits of the last state s = 2 xD + yD from
- * the masks, L(s) = L0 + (my &amp; (L1 - L0)) + (mx &amp; (L2 - L0 + (my &amp; (L3 - L2 - L1 + L0)))),
- * exact in 64-bit integers since limits lie in [-1, 2^32 - 1]; a player defects iff L(s) - u &lt; 0 for
- * its 32 bits u of the draw, and the sign, spread by an arithmetic shift, is its new mask.</li>
+ * <li>Draw (every other round): step each lane's XoRoShiRo128++ words twice, keeping this round's and the
+ * next round's outputs.</li>
+ * <li>Decide: pick the limits of the last state s = 2 xD + yD from the masks,
+ * L(s) = L0 + (my &amp; (L1 - L0)) + (mx &amp; (L2 - L0 + (my &amp; (L3 - L2 - L1 + L0)))), exact in
+ * 64-bit integers since limits lie in [-1, 2^32 - 1]; a player defects iff L(s) - u &lt; 0 for its 32
+ * bits u of the draw, and the sign, spread by an arithmetic shift, is its new mask. When no limit is -1
+ * the two players' limits are packed in one word and selected once ({@link DecidePacked}).</li>
  * <li>Count: a tallied transition from s to s' adds 1 &lt;&lt; 4 (4 s + s') to the lane's 64-bit word
  * of sixteen 4-bit counters. The shift is built from the four masks by conditional constant shifts
- * (v + (m &amp; ((v &lt;&lt; k) - v)) is v or v &lt;&lt; k), because a per-lane variable shift does not
+ * (a branch-free choice of v or v &lt;&lt; k per mask), because a per-lane variable shift does not
  * vectorise here. Every 15 counted rounds, before a 4-bit counter can overflow, the word is split
  * into two words of 8-bit counters (even and odd transitions), and before those can pass 255 they are
  * added into per-lane long counts.</li>
  * </ol>
  * At the end of the block each lane's transition counts give its state counts (the first tallied
- * round's state plus the column sums) and the per-game statistics, added to the accumulator lane by
- * lane. Burn-in rounds are decided but not counted; snapshot and time-resolved rounds are counted from
- * the masks by a plain loop over the lanes.
+ * round's state plus the column sums); the per-game statistics are summed over the block (in plain longs
+ * for games of at most 2^27 rounds) and added to the accumulator once. Burn-in rounds are decided but
+ * not counted; snapshot and time-resolved rounds are counted from the masks by a plain loop over the
+ * lanes.
  */
 final class LockstepKernel extends Worker {
     /** Games per block: the lane arrays (about 12 longs per lane) stay in a 32 KiB L1 data cache. */
