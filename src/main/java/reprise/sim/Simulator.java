@@ -248,7 +248,7 @@ public final class Simulator {
         Match m = spec.match();
         Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
         if (fast) {
-            FusedTables t = FusedTables.of((MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise());
+            FusedTables t = fusedTables();
             if (plan.fixedRounds() > 0 && chunk >= LOCKSTEP_MIN_GAMES) {
                 return new LockstepKernel(plan, acc, t);
             }
@@ -267,22 +267,24 @@ public final class Simulator {
 
     /** Testing hook: the lockstep kernel on one thread, with a limit for per-block statistics. */
     SimulationResult simulateLockstep(long from, long to, long blockStatisticsLength) {
-        Match m = spec.match();
-        Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
-        Worker k = new LockstepKernel(plan, acc,
-            FusedTables.of((MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise()), blockStatisticsLength);
-        k.run(from, to);
-        return new SimulationResult(configuration, spec.seed(), fast, m.game().payoffX(), m.game().payoffY(),
-            List.of(new SimulationResult.ReplicateRange(from, to)), acc);
+        return runAlone(from, to, acc -> new LockstepKernel(plan, acc, fusedTables(), blockStatisticsLength));
     }
 
     /** Testing hook: the per-game fused kernel on one thread, whatever the horizon and chunking. */
     SimulationResult simulatePerGame(long from, long to) {
+        return runAlone(from, to, acc -> new FusedMemoryOneKernel(plan, acc, fusedTables()));
+    }
+
+    private FusedTables fusedTables() {
         Match m = spec.match();
+        return FusedTables.of((MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise());
+    }
+
+    /** Runs [from, to) on the calling thread with the worker {@code make} builds around a fresh accumulator. */
+    private SimulationResult runAlone(long from, long to, java.util.function.Function<Accumulator, Worker> make) {
         Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
-        Kernel k = new FusedMemoryOneKernel(plan, acc,
-            FusedTables.of((MemoryStrategy) m.x(), (MemoryStrategy) m.y(), m.noise()));
-        k.run(from, to);
+        make.apply(acc).run(from, to);
+        Match m = spec.match();
         return new SimulationResult(configuration, spec.seed(), fast, m.game().payoffX(), m.game().payoffY(),
             List.of(new SimulationResult.ReplicateRange(from, to)), acc);
     }
