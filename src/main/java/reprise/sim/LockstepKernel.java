@@ -421,6 +421,10 @@ final class LockstepKernel extends Worker {
     }
 
     private void finishBlock(int lanes, long n) {
+        if (!laneStepsUsed && n <= blockStatisticsLength) {
+            finishShortBlock(lanes, n);
+            return;
+        }
         long[] sums = blockSteps;
         java.util.Arrays.fill(sums, 0);
         java.util.Arrays.fill(stateSums, 0);
@@ -467,6 +471,97 @@ final class LockstepKernel extends Worker {
             long tallied = Math.max(0, n - plan.burnIn());
             acc.recordGames(lanes, n, tallied, stateSums, pairSums);
         }
+    }
+
+    /**
+     * {@link #finishBlock} when every count is still in the 8-bit counters: byte f of a lane's even word
+     * counts transition 2 f (to state 2 f mod 4, so to 0 for even f and to 2 for odd f), byte f of its odd
+     * word transition 2 f + 1. Masking alternate bytes gives four 16-bit fields, which one multiplication
+     * by 0x0001000100010001 sums into the top field; and the block's sums of each byte, at most
+     * LANES 255 &lt; 2^16, add up in 16-bit fields without carries.
+     */
+    private void finishShortBlock(int lanes, long n) {
+        final long alternate = 0x00FF00FF00FF00FFL;
+        final long fold = 0x0001000100010001L;
+        long evenLow = 0;
+        long evenHigh = 0;
+        long oddLow = 0;
+        long oddHigh = 0;
+        long n0 = 0;
+        long n1 = 0;
+        long n2 = 0;
+        long n3 = 0;
+        long p00 = 0;
+        long p01 = 0;
+        long p02 = 0;
+        long p03 = 0;
+        long p11 = 0;
+        long p12 = 0;
+        long p13 = 0;
+        long p22 = 0;
+        long p23 = 0;
+        long p33 = 0;
+        for (int j = 0; j < lanes; j++) {
+            long e0 = evenBytes[j] & alternate;
+            long e1 = (evenBytes[j] >>> 8) & alternate;
+            long o0 = oddBytes[j] & alternate;
+            long o1 = (oddBytes[j] >>> 8) & alternate;
+            evenLow += e0;
+            evenHigh += e1;
+            oddLow += o0;
+            oddHigh += o1;
+            int first = firstState[j];
+            long g0 = ((e0 * fold) >>> 48) + (first == 0 ? 1 : 0);
+            long g1 = ((o0 * fold) >>> 48) + (first == 1 ? 1 : 0);
+            long g2 = ((e1 * fold) >>> 48) + (first == 2 ? 1 : 0);
+            long g3 = ((o1 * fold) >>> 48) + (first == 3 ? 1 : 0);
+            n0 += g0;
+            n1 += g1;
+            n2 += g2;
+            n3 += g3;
+            p00 += g0 * g0;
+            p01 += g0 * g1;
+            p02 += g0 * g2;
+            p03 += g0 * g3;
+            p11 += g1 * g1;
+            p12 += g1 * g2;
+            p13 += g1 * g3;
+            p22 += g2 * g2;
+            p23 += g2 * g3;
+            p33 += g3 * g3;
+        }
+        long[] steps = acc.steps;
+        for (int f = 0; f < 8; f++) {
+            long even = f % 2 == 0 ? evenLow : evenHigh;
+            long odd = f % 2 == 0 ? oddLow : oddHigh;
+            int field = 16 * (f / 2);
+            steps[2 * f] = Math.addExact(steps[2 * f], (even >>> field) & 0xFFFF);
+            steps[2 * f + 1] = Math.addExact(steps[2 * f + 1], (odd >>> field) & 0xFFFF);
+        }
+        long[] st = stateSums;
+        st[0] = n0;
+        st[1] = n1;
+        st[2] = n2;
+        st[3] = n3;
+        long[] pairs = pairSums;
+        pairs[0] = p00;
+        pairs[1] = p01;
+        pairs[2] = p02;
+        pairs[3] = p03;
+        pairs[4] = p01;
+        pairs[5] = p11;
+        pairs[6] = p12;
+        pairs[7] = p13;
+        pairs[8] = p02;
+        pairs[9] = p12;
+        pairs[10] = p22;
+        pairs[11] = p23;
+        pairs[12] = p03;
+        pairs[13] = p13;
+        pairs[14] = p23;
+        pairs[15] = p33;
+        addCounts(st);
+        acc.recordGames(lanes, n, Math.max(0, n - plan.burnIn()), st, pairs);
     }
 
     private void addCounts(long[] counts) {
