@@ -15,7 +15,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import reprise.experiment.Experiment;
 import reprise.experiment.ExperimentFile;
 import reprise.experiment.InvalidExperimentException;
-import reprise.experiment.WorkPlan;
+import reprise.run.WorkPlan;
 import reprise.output.AtomicFiles;
 
 /**

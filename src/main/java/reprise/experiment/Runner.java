@@ -171,21 +171,6 @@ public final class Runner {
     }
 
     /**
-     * Simulates one unit of work (a range of a case's games).
-     *
-     * @param e the experiment
-     * @param c the case
-     * @param unit the unit
-     * @param threads worker threads
-     * @param listener progress, or null
-     * @return the tallies of the unit's games
-     */
-    public static SimulationResult runUnit(Experiment e, Case c, WorkPlan.Unit unit, int threads,
-        ProgressListener listener) {
-        return new Simulator(spec(e, c, threads)).simulateRange(unit.from(), unit.to(), listener);
-    }
-
-    /**
      * Joins a case's simulation (for example merged from shards) with its exact side.
      *
      * @param e the experiment

@@ -17,7 +17,7 @@ import java.util.stream.Stream;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import reprise.output.Checkpoint;
+import reprise.run.Checkpoint;
 
 /**
  * Interrupts a real {@code check} run in a child JVM (kill -9 and SIGTERM) once at least one unit is

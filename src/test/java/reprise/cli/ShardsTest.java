@@ -28,8 +28,8 @@ import org.junit.jupiter.params.provider.MethodSource;
 import org.junit.jupiter.params.provider.ValueSource;
 import reprise.experiment.Experiment;
 import reprise.experiment.ExperimentFile;
-import reprise.experiment.WorkPlan;
-import reprise.output.ShardFile;
+import reprise.run.Part;
+import reprise.run.WorkPlan;
 
 /**
  * Sharded runs without a scheduler: shard assignment, merged results against an unsharded run, shard
@@ -105,7 +105,7 @@ class ShardsTest {
             Run r = run("check", experiment.toString(), "--shard", i + "/" + n, "--out", dir.toString(), "--quiet",
                 "--threads", "1");
             assertEquals(0, r.code(), r.err());
-            assertTrue(Files.isRegularFile(dir.resolve("shards").resolve(ShardFile.fileName(i, n))), r.out());
+            assertTrue(Files.isRegularFile(dir.resolve("shards").resolve(new Part(i, n).fileName())), r.out());
         }
         return dir;
     }
@@ -232,7 +232,7 @@ class ShardsTest {
 
     static void editShard(Path dir, int i, Consumer<ObjectNode> edit) {
         try {
-            Path f = dir.resolve("shards").resolve(ShardFile.fileName(i, 3));
+            Path f = dir.resolve("shards").resolve(new Part(i, 3).fileName());
             ObjectNode o = (ObjectNode) Json.MAPPER.readTree(f.toFile());
             edit.accept(o);
             Files.writeString(f, Json.MAPPER.writeValueAsString(o));

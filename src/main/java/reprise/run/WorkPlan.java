@@ -1,9 +1,11 @@
-package reprise.experiment;
+package reprise.run;
 
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
+import reprise.experiment.Case;
+import reprise.experiment.Experiment;
 
 /**
  * How an experiment's simulation work is cut into units: each case's replicates are split into chunks of

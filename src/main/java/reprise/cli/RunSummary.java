@@ -1,0 +1,55 @@
+package reprise.cli;
+
+import java.io.PrintWriter;
+import java.util.List;
+import java.util.Locale;
+import reprise.experiment.CaseResult;
+import reprise.experiment.Experiment;
+import reprise.experiment.Runner;
+import reprise.experiment.Verdict;
+import reprise.run.Finished;
+
+/** What {@code check} and {@code merge} print about a finished run: the summary and the warnings. */
+final class RunSummary {
+
+    private RunSummary() {
+    }
+
+    /**
+     * Prints the one-line summary and one line per disagreement.
+     *
+     * @param stdout where to print
+     * @param e the experiment
+     * @param finished the finished run
+     */
+    static void print(PrintWriter stdout, Experiment e, Finished finished) {
+        Runner.Outcome outcome = finished.outcome();
+        long bad = outcome.rows().stream().filter(r -> r.verdict() == Verdict.DISAGREES
+            && !r.comparison().equals("stationary")).count();
+        stdout.printf(Locale.ROOT, "%s: %d cases, %d comparisons, %s; results in %s%n", e.name(),
+            finished.results().size(), outcome.rows().size(), bad == 0 ? "no disagreement" : bad + " disagree",
+            finished.folder());
+        outcome.rows().stream().filter(r -> r.verdict() == Verdict.DISAGREES
+            && !r.comparison().equals("stationary")).forEach(r -> stdout.printf(Locale.ROOT,
+            "  disagrees: %s %s (%s): predicted %s, observed %s%n", r.caseId(), r.quantity(), r.comparison(),
+            Double.isNaN(r.predicted()) ? "-" : String.format(Locale.ROOT, "%.6g", r.predicted()),
+            Double.isNaN(r.observed()) ? "-" : String.format(Locale.ROOT, "%.6g", r.observed())));
+    }
+
+    /**
+     * Prints the run's warnings on stderr: the experiment-level ones in full, the per-case ones as a count
+     * (they are listed in report.md and cases.csv).
+     *
+     * @param err stderr
+     * @param finished the finished run
+     */
+    static void warnings(PrintWriter err, Finished finished) {
+        List<CaseResult> results = finished.results();
+        finished.outcome().warnings().forEach(w -> err.println("reprise check: warning: " + w));
+        long withWarnings = results.stream().filter(r -> !r.warnings().isEmpty()).count();
+        if (withWarnings > 0) {
+            err.printf(Locale.ROOT, "reprise check: %d of %d cases have warnings (listed in report.md)%n", withWarnings,
+                results.size());
+        }
+    }
+}

@@ -1,0 +1,37 @@
+package reprise.run;
+
+import java.nio.file.Path;
+import java.util.List;
+
+/**
+ * How to run: where to write, with how many threads, what to do with an earlier run in the folder, and
+ * what to record in run.json.
+ *
+ * @param out the output folder, or null for the experiment's {@code output:}
+ * @param threads worker threads, at least 1
+ * @param force whether to replace a finished or interrupted run in the folder
+ * @param resume whether to continue an interrupted run from its checkpoint
+ * @param commandLine the command line, for run.json
+ * @param toolVersion the tool version, recorded in every file and checked when tallies are read back
+ */
+public record RunSettings(Path out, int threads, boolean force, boolean resume, List<String> commandLine,
+    String toolVersion) {
+
+    /**
+     * @throws IllegalArgumentException if threads is below 1
+     */
+    public RunSettings {
+        if (threads < 1) {
+            throw new IllegalArgumentException("--threads must be at least 1: " + threads);
+        }
+        commandLine = List.copyOf(commandLine);
+    }
+
+    /**
+     * @param job the job
+     * @return the output folder of this run of the job
+     */
+    public Path folder(Job job) {
+        return out != null ? out : job.experiment().output();
+    }
+}
