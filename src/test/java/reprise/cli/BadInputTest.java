@@ -15,7 +15,6 @@ import java.util.List;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -104,24 +103,43 @@ class BadInputTest {
     }
 
     /**
-     * A folder without write permission. Tests usually run as root, for whom permission bits do not stop
-     * writing; the test then cannot make an unwritable folder and is skipped (the suite's under-a-file
-     * case covers an output path that cannot be created whoever runs it).
+     * An output folder that cannot be created, whoever runs the test (root included, for whom permission
+     * bits do not stop writing): its path runs through a regular file, two levels below it. The run must
+     * be refused in the output-folder check, before anything is simulated or written, with the reason
+     * (the file in the way) in one line; the file must be left as it was. Where permission bits do apply
+     * (not root), a folder without write permission is refused too, as "not writable".
      */
     @Test
-    void unwritableFolderIsRefused() throws IOException {
+    void unwritableOutputIsRefused() throws IOException {
+        Path blocker = tmp.resolve("blocker");
+        Files.writeString(blocker, "a regular file\n");
+        Path target = blocker.resolve("deeper").resolve("out");
+        StringWriter stderr = new StringWriter();
+        StringWriter stdout = new StringWriter();
+        int code = Main.run(new String[] {"check", BAD.resolve("../ok/tiny.yaml").toString(), "--out",
+            target.toString(), "--quiet"}, new PrintWriter(stdout), new PrintWriter(stderr));
+        assertEquals(Main.BAD_INPUT, code, stderr.toString());
+        assertEquals("", stdout.toString());
+        assertEquals("reprise check: " + BAD.resolve("../ok/tiny.yaml") + ": --out: " + target + " cannot be created: "
+            + blocker.toAbsolutePath().normalize() + " is a file, not a folder", stderr.toString().strip());
+        assertEquals("a regular file\n", Files.readString(blocker));
+        try (Stream<Path> left = Files.list(tmp)) {
+            assertEquals(List.of(blocker), left.toList(), "something was written");
+        }
+
         Path locked = tmp.resolve("locked");
         Files.createDirectory(locked);
         Files.setPosixFilePermissions(locked, PosixFilePermissions.fromString("r-xr-xr-x"));
         try {
-            Assumptions.assumeFalse(Files.isWritable(locked), "running as root: permission bits do not apply");
-            StringWriter stderr = new StringWriter();
-            int code = Main.run(new String[] {"check", BAD.resolve("../ok/tiny.yaml").toString(), "--out",
-                locked.resolve("out").toString(), "--quiet"}, new PrintWriter(new StringWriter()),
-                new PrintWriter(stderr));
-            assertEquals(Main.BAD_INPUT, code, stderr.toString());
-            assertTrue(stderr.toString().contains("not writable"), stderr.toString());
-            assertFalse(Files.exists(locked.resolve("out")));
+            if (!Files.isWritable(locked)) {
+                stderr = new StringWriter();
+                code = Main.run(new String[] {"check", BAD.resolve("../ok/tiny.yaml").toString(), "--out",
+                    locked.resolve("out").toString(), "--quiet"}, new PrintWriter(new StringWriter()),
+                    new PrintWriter(stderr));
+                assertEquals(Main.BAD_INPUT, code, stderr.toString());
+                assertTrue(stderr.toString().contains("not writable"), stderr.toString());
+                assertFalse(Files.exists(locked.resolve("out")));
+            }
         } finally {
             Files.setPosixFilePermissions(locked, PosixFilePermissions.fromString("rwxr-xr-x"));
         }
