@@ -9,8 +9,9 @@ import java.util.List;
 
 /**
  * Writes a {@link SimulationResult} as JSON and reads it back exactly: every tally is an integer, so a
- * result read back merges with others into bit-identical numbers. Used for checkpoints (resume after an
- * interruption) and for the partial results of cluster shards.
+ * result read back merges with others into bit-identical numbers. It is the tally object inside the run
+ * layer's unit files (checkpoints and shards, {@code reprise.run.UnitFile}), and lives here because it
+ * reads and writes the accumulator's fields.
  *
  * <p>The JSON object has {@code format} = {@value #FORMAT}, the run's {@code configuration} text, {@code seed},
  * {@code fast_path}, the payoff vectors, the replicate {@code ranges} and the raw tallies. Reading checks the
