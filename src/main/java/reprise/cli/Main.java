@@ -26,10 +26,10 @@ import picocli.CommandLine.IVersionProvider;
         "2:bad input or usage", "3:internal error"})
 public final class Main implements Runnable {
 
-    /** Exit code when everything agrees. */
-    public static final int OK = 0;
-    /** Exit code when a comparison disagrees. */
-    public static final int DISAGREES = 1;
+    /** Exit code when everything agrees (the code a finished run records in run.json). */
+    public static final int OK = reprise.run.Finished.AGREES;
+    /** Exit code when a comparison disagrees (the code a finished run records in run.json). */
+    public static final int DISAGREES = reprise.run.Finished.DISAGREES;
     /** Exit code for bad input or usage. */
     public static final int BAD_INPUT = 2;
     /** Exit code for an internal error. */
