@@ -78,11 +78,12 @@ public final class Checkpoint {
      *
      * @param run the run's identity
      * @param unitsTotal the number of units of the experiment
+     * @param threads the worker threads that simulated the unit
      * @param unit the unit
      * @param result its tallies
      */
-    void save(RunIdentity run, int unitsTotal, WorkPlan.Unit unit, SimulationResult result) {
-        UnitFile.Header h = new UnitFile.Header(run, part, unitsTotal, 0, Double.NaN);
+    void save(RunIdentity run, int unitsTotal, int threads, WorkPlan.Unit unit, SimulationResult result) {
+        UnitFile.Header h = new UnitFile.Header(run, part, unitsTotal, threads, Double.NaN);
         UnitFile.write(dir.resolve(unit.fileName()), new UnitFile.Content(h, List.of(UnitFile.UnitTally.of(unit,
             result))));
     }

@@ -60,7 +60,7 @@ public final class LocalRun {
             SimulationResult r = done.get(u);
             if (r == null) {
                 r = simulate(job, c, u, settings.threads(), listener);
-                checkpoint.save(identity, units.size(), u, r);
+                checkpoint.save(identity, units.size(), settings.threads(), u, r);
                 saved[0]++;
                 listener.unitSaved(saved[0], units.size());
                 TestHold.afterUnitSaved(saved[0] - done.size());

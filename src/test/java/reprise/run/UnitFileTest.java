@@ -70,7 +70,7 @@ class UnitFileTest {
         WorkPlan.Unit u = new WorkPlan.Unit(0, 0, 0, 10, 200);
         SimulationResult r = sim.simulateRange(0, 10, null);
         Checkpoint whole = Checkpoint.of(tmp);
-        whole.save(RUN, 1, u, r);
+        whole.save(RUN, 1, 1, u, r);
         assertEquals(Map.of(u, r), whole.load(RUN, List.of(u)));
 
         WorkPlan.Unit wider = new WorkPlan.Unit(0, 0, 0, 12, 240);
@@ -82,7 +82,7 @@ class UnitFileTest {
         assertTrue(ex.getMessage().contains("different run (tool version test-version, now 0.1)"), ex.getMessage());
 
         whole.delete();
-        Checkpoint.of(tmp, new Part(1, 2)).save(RUN, 1, u, r);
+        Checkpoint.of(tmp, new Part(1, 2)).save(RUN, 1, 1, u, r);
         ex = assertThrows(IllegalArgumentException.class, () -> whole.load(RUN, List.of(u)));
         assertTrue(ex.getMessage().contains("different run (shard 1 of 2, now 1 of 1)"), ex.getMessage());
     }
