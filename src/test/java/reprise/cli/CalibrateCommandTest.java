@@ -138,7 +138,7 @@ class CalibrateCommandTest {
 
     @Test
     void userWrittenAgentHasNothingToCalibrateAgainst(@TempDir Path dir) {
-        Run r = run("calibrate", "--x", "agent:forgiver", "--y", "tft", "--rounds", "10", "--out", dir.toString());
+        Run r = run("calibrate", "--x", "agent:runcap", "--y", "tft", "--rounds", "10", "--out", dir.toString());
         assertEquals(Main.BAD_INPUT, r.code(), r.err());
         assertEquals("", r.out());
         assertTrue(r.err().contains("nothing to calibrate against"), r.err());

@@ -184,10 +184,10 @@ class GuardRailsAndEdgeCasesTest {
 
     @Test
     void userWrittenAgentHasNoExactPredictionSaidPlainly() throws IOException {
-        Run r = check("agent", experiment("agent:forgiver", "tft", "0.05", "rounds: [30]", 100, ""));
+        Run r = check("agent", experiment("agent:runcap", "tft", "0.05", "rounds: [30]", 100, ""));
         assertEquals(Main.OK, r.code(), r.stderr());
         String results = r.read("results.csv");
-        assertTrue(results.contains("no-prediction,no exact prediction for agent:forgiver"), results);
-        assertTrue(r.read("report.md").contains("no exact prediction for agent:forgiver"), r.read("report.md"));
+        assertTrue(results.contains("no-prediction,no exact prediction for agent:runcap"), results);
+        assertTrue(r.read("report.md").contains("no exact prediction for agent:runcap"), r.read("report.md"));
     }
 }
