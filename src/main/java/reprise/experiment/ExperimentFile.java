@@ -69,19 +69,17 @@ public final class ExperimentFile {
         }
         double[] v = new double[2];
         for (int i = 0; i < parts.length; i++) {
-            double d;
             String t = parts[i].trim();
-            String lower = t.toLowerCase(Locale.ROOT);
-            if (lower.contains("nan") || lower.contains("inf")) {
+            YamlReader.NumberText kind = YamlReader.NumberText.of(t);
+            if (kind == YamlReader.NumberText.NOT_FINITE) {
                 throw new IllegalArgumentException("must be a finite probability: '" + t + "'");
             }
-            try {
-                d = Double.parseDouble(t);
-            } catch (NumberFormatException e) {
-                throw new IllegalArgumentException("is not a number: '" + t + "'", e);
+            if (kind == YamlReader.NumberText.NOT_A_NUMBER) {
+                throw new IllegalArgumentException("is not a number: '" + t + "'");
             }
+            double d = Double.parseDouble(t);
             if (!(d >= 0 && d <= 1)) {
-                throw new IllegalArgumentException("must be a probability in [0, 1]: " + parts[i].trim());
+                throw new IllegalArgumentException("must be a probability in [0, 1]: " + t);
             }
             v[i] = d;
         }

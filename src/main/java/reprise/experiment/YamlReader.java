@@ -169,26 +169,44 @@ final class YamlReader {
         }
     }
 
+    /** How a text reads as a number. */
+    enum NumberText {
+        /** A finite double. */
+        FINITE,
+        /** NaN or infinite: it names NaN or infinity, or overflows. */
+        NOT_FINITE,
+        /** Not a number at all. */
+        NOT_A_NUMBER;
+
+        /**
+         * The one finite-number check of experiment files (values, probability pairs).
+         *
+         * @param t the text, trimmed
+         * @return its kind
+         */
+        static NumberText of(String t) {
+            try {
+                return Double.isFinite(Double.parseDouble(t)) ? FINITE : NOT_FINITE;
+            } catch (NumberFormatException e) {
+                String lower = t.toLowerCase(Locale.ROOT);
+                return lower.contains("nan") || lower.contains("inf") ? NOT_FINITE : NOT_A_NUMBER;
+            }
+        }
+    }
+
     /** A finite number, or null after reporting. */
     static Double asDouble(Scalar s, String field, Problems problems) {
         String t = s.text().trim();
-        double d;
-        try {
-            d = Double.parseDouble(t);
-        } catch (NumberFormatException e) {
-            String lower = t.toLowerCase(Locale.ROOT);
-            if (lower.contains("nan") || lower.contains("inf")) {
+        switch (NumberText.of(t)) {
+            case FINITE:
+                return Double.parseDouble(t);
+            case NOT_FINITE:
                 problems.add(s.line(), field, "must be a finite number: '" + t + "'");
-            } else {
+                return null;
+            default:
                 problems.add(s.line(), field, "must be a number: '" + t + "'");
-            }
-            return null;
+                return null;
         }
-        if (!Double.isFinite(d)) {
-            problems.add(s.line(), field, "must be a finite number: '" + t + "'");
-            return null;
-        }
-        return d;
     }
 
     /** The constants named (case-insensitively) by a value or list, or all of them when the node is absent. */
