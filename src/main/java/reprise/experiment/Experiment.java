@@ -1,8 +1,13 @@
 package reprise.experiment;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.EnumSet;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Objects;
 import java.util.Set;
 import reprise.game.Horizon;
 import reprise.game.StageGame;
@@ -11,7 +16,10 @@ import reprise.game.StageGame;
  * A validated experiment: what to play, over which grid, how much, and which comparisons to make.
  *
  * <p>Built only by {@link ExperimentFile#read(Path)}, which checks every field and reports all problems
- * at once. The grid is expanded into {@link Case}s by {@link #cases()}.
+ * at once (through a {@link Builder}). The grid is expanded into {@link Case}s by {@link #cases()}.
+ *
+ * <p>Immutable: the constructor copies every collection (keeping file order) and checks the invariants
+ * the file reader has established, so that an experiment built otherwise cannot be inconsistent.
  *
  * @param name a short name (used for the default output folder)
  * @param description free text for the report
@@ -43,6 +51,108 @@ public record Experiment(String name, String description, Path file, String sha2
     Path output) {
 
     /**
+     * Copies the collections and checks the invariants; messages name the component and show the value.
+     *
+     * @throws IllegalArgumentException if a component is out of range
+     * @throws NullPointerException if a required component is null (only sha256 and claims may be null)
+     */
+    public Experiment {
+        Objects.requireNonNull(name, "name");
+        Objects.requireNonNull(description, "description");
+        Objects.requireNonNull(file, "file");
+        Objects.requireNonNull(gameText, "gameText");
+        Objects.requireNonNull(game, "game");
+        Objects.requireNonNull(correction, "correction");
+        Objects.requireNonNull(output, "output");
+        pairs = nonEmpty("pairs", pairs);
+        noise = nonEmpty("noise", noise);
+        misperception = nonEmpty("misperception", misperception);
+        horizons = nonEmpty("horizons", horizons);
+        snapshots = List.copyOf(snapshots);
+        parameters = copyAxes(parameters);
+        quantities = Collections.unmodifiableSet(copyEnums(Quantity.class, quantities));
+        tests = Collections.unmodifiableSet(copyEnums(Comparison.class, tests));
+        if (replicates < 1) {
+            throw new IllegalArgumentException("replicates must be at least 1: " + replicates);
+        }
+        if (!(alpha > 0 && alpha < 0.5)) {
+            throw new IllegalArgumentException("alpha must be in (0, 0.5): " + alpha);
+        }
+        if (!(tolerance > 0)) {
+            throw new IllegalArgumentException("tolerance must be a positive margin: " + tolerance);
+        }
+        if (burnIn < 0) {
+            throw new IllegalArgumentException("burn-in must be at least 0 rounds: " + burnIn);
+        }
+        for (long t : snapshots) {
+            if (t < 1) {
+                throw new IllegalArgumentException("snapshot rounds are counted from 1: " + t);
+            }
+        }
+    }
+
+    private static <T> List<T> nonEmpty(String what, List<T> values) {
+        List<T> copy = List.copyOf(values);
+        if (copy.isEmpty()) {
+            throw new IllegalArgumentException(what + " must not be empty");
+        }
+        return copy;
+    }
+
+    private static Map<String, List<Double>> copyAxes(Map<String, List<Double>> axes) {
+        Map<String, List<Double>> copy = new LinkedHashMap<>();
+        axes.forEach((k, v) -> copy.put(Objects.requireNonNull(k, "parameter name"), List.copyOf(v)));
+        return Collections.unmodifiableMap(copy);
+    }
+
+    private static <E extends Enum<E>> Set<E> copyEnums(Class<E> type, Set<E> values) {
+        Set<E> copy = EnumSet.noneOf(type);
+        copy.addAll(values);
+        return copy;
+    }
+
+    /**
+     * Collects an experiment's components while a file is read; {@link #build()} makes the immutable
+     * value. Unset fields keep the file format's defaults.
+     */
+    static final class Builder {
+        String name;
+        String description = "";
+        Path file;
+        String sha256;
+        String gameText;
+        StageGame game;
+        List<Pair> pairs = new ArrayList<>();
+        List<String> noise = List.of("0");
+        List<String> misperception = List.of("0");
+        List<Horizon> horizons = new ArrayList<>();
+        Map<String, List<Double>> parameters = new LinkedHashMap<>();
+        long replicates = 1000;
+        long seed = 1;
+        double alpha = 0.05;
+        double tolerance = 0.01;
+        long burnIn;
+        List<Long> snapshots = new ArrayList<>();
+        Set<Quantity> quantities = EnumSet.allOf(Quantity.class);
+        Set<Comparison> tests = EnumSet.allOf(Comparison.class);
+        Correction correction = Correction.HOLM;
+        Path claims;
+        Path output;
+
+        /** @return whether the horizons are continuation probabilities (random game lengths) */
+        boolean continuation() {
+            return !horizons.isEmpty() && horizons.get(0) instanceof Horizon.Continuation;
+        }
+
+        /** @return the experiment */
+        Experiment build() {
+            return new Experiment(name, description, file, sha256, gameText, game, pairs, noise, misperception,
+                horizons, parameters, replicates, seed, alpha, tolerance, burnIn, snapshots, quantities, tests,
+                correction, claims, output);
+        }
+    }
+
+    /**
      * A named pair of strategy specs.
      *
      * @param name unique within the experiment
@@ -51,6 +161,12 @@ public record Experiment(String name, String description, Path file, String sha2
      * @param line the line of the pair in the file (for messages)
      */
     public record Pair(String name, String x, String y, int line) {
+        /** Checks that the name and specs are present. */
+        public Pair {
+            Objects.requireNonNull(name, "name");
+            Objects.requireNonNull(x, "x");
+            Objects.requireNonNull(y, "y");
+        }
     }
 
     /** What is estimated and compared. */

@@ -59,7 +59,7 @@ final class Grid {
                                 id.append('/').append(h.describe());
                             }
                             out.add(new Case(out.size(), id.toString(), pair.name(), xs, ys, noise, mis, h,
-                                Map.copyOf(params), m));
+                                params, m));
                         }
                     }
                 }

@@ -13,7 +13,7 @@ import java.util.List;
  */
 public interface AgentFactory {
 
-    /** @return the name used in specs, e.g. {@code forgiver} for {@code agent:forgiver,2} */
+    /** @return the name used in specs, e.g. {@code runcap} for {@code agent:runcap,2} */
     String name();
 
     /** @return a one-line description of the arguments, shown when a spec is wrong */

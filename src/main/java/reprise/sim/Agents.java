@@ -16,7 +16,7 @@ import reprise.game.Strategy;
  * <p>Every {@link MemoryStrategy} (reactive, memory-one, memory-n, the named classics and the
  * zero-determinant strategies) becomes a table agent whose record is its own-view history index. A
  * {@link CustomStrategy} {@code agent:NAME[,ARG...]} is looked up among the {@link AgentFactory}
- * implementations found by {@link ServiceLoader} (the shipped one is {@code forgiver}).
+ * implementations found by {@link ServiceLoader} (the shipped one is {@code runcap}).
  */
 public final class Agents {
 
@@ -69,8 +69,8 @@ public final class Agents {
         for (AgentFactory f : sl) {
             map.putIfAbsent(f.name().toLowerCase(Locale.ROOT), f);
         }
-        if (!map.containsKey("forgiver")) {
-            map.put("forgiver", new ForgiverAgentFactory());
+        if (!map.containsKey("runcap")) {
+            map.put("runcap", new RunCapAgentFactory());
         }
         return map;
     }

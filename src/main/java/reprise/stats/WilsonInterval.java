@@ -13,7 +13,8 @@ import org.apache.commons.statistics.distribution.NormalDistribution;
  * <p>With continuity correction (Newcombe 1998, method 4):
  * L = (2np + z^2 - 1 - z sqrt(z^2 - 2 - 1/n + 4p(n(1-p) + 1))) / (2(n + z^2)),
  * U = (2np + z^2 + 1 + z sqrt(z^2 + 2 - 1/n + 4p(n(1-p) - 1))) / (2(n + z^2)),
- * with L = 0 when x = 0 and U = 1 when x = n. Bounds are clipped to [0, 1].
+ * with L = 0 when x = 0 and U = 1 when x = n (in both forms, where the formulas give these values
+ * exactly). Bounds are clipped to [0, 1].
  *
  * <p>References:
  * <ul>
@@ -82,8 +83,10 @@ public final class WilsonInterval {
         if (correction == Correction.NONE) {
             double centre = p + z2 / (2 * n);
             double spread = z * Math.sqrt(p * (1 - p) / n + z2 / (4 * n * n));
-            lower = (centre - spread) / (1 + z2 / n);
-            upper = (centre + spread) / (1 + z2 / n);
+            // At x = 0 (x = n) the lower (upper) bound is exactly 0 (1), but centre - spread rounds to a few
+            // 1e-18 for large z: take the exact value so that lower <= x/n <= upper always holds.
+            lower = successes == 0 ? 0 : (centre - spread) / (1 + z2 / n);
+            upper = successes == trials ? 1 : (centre + spread) / (1 + z2 / n);
         } else {
             double d = 2 * (n + z2);
             lower = successes == 0 ? 0

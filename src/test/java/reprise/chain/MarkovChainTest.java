@@ -88,10 +88,10 @@ class MarkovChainTest {
 
     @Test
     void refusesWhatHasNoChain() {
-        Match agent = Support.match(new CustomStrategy("forgiver", List.of()),
+        Match agent = Support.match(new CustomStrategy("runcap", List.of()),
             MemoryStrategy.memoryOne("tft", new double[] {1, 0, 1, 0}, 1), Noise.NONE);
         NoPredictionException e = assertThrows(NoPredictionException.class, () -> MarkovChain.of(agent));
-        assertTrue(e.getMessage().startsWith("no exact prediction for agent:forgiver: user-written agents have no "
+        assertTrue(e.getMessage().startsWith("no exact prediction for agent:runcap: user-written agents have no "
             + "Markov chain"), e.getMessage());
         Match big = Support.match("memory3:" + "1,".repeat(63) + "0", "tft", Noise.symmetric(0, 0.01));
         NoPredictionException e3 = assertThrows(NoPredictionException.class, () -> MarkovChain.of(big));

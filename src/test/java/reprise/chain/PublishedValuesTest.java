@@ -309,7 +309,9 @@ class PublishedValuesTest {
 
     // REFERENCES.md item 5 existence threshold (derived independently there; compare Ichinose & Masuda 2018):
     // at delta = 7/9 the chi = 2 extortioner is p = (1, 0, 6/7, 0) with p0 = 0, and pi_X - 1 = 2 (pi_Y - 1).
-    // (game.ZeroDeterminant refuses this boundary case because its phi interval is a single point.)
+    // There the allowed phi interval is the single point 1/9; game.ZeroDeterminant accepts it and builds this
+    // vector from "extort:chi=2,delta=7/9" (ZeroDeterminantTest). The table is written out here so that this
+    // check of the exact engine does not go through ZeroDeterminant.
     @ParameterizedTest
     @MethodSource("opponents")
     void extortionAtTheExistenceThreshold(String opponent) {

@@ -109,7 +109,7 @@ class PlanCommandTest {
 
     @Test
     void userWrittenAgentHasNothingToPlanFrom() {
-        String[] r = run("plan", "--x", "agent:forgiver", "--y", "tft", "--rounds", "10", "--half-width", "0.1");
+        String[] r = run("plan", "--x", "agent:runcap", "--y", "tft", "--rounds", "10", "--half-width", "0.1");
         assertEquals("2", r[0]);
         assertEquals("", r[1]);
         assertTrue(r[2].contains("nothing to plan from"), r[2]);

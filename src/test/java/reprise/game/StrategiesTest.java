@@ -104,11 +104,11 @@ class StrategiesTest {
 
     @Test
     void customAgentsKeepNameAndArguments() {
-        Strategy s = Strategies.parse("agent:forgiver, 3", PD, Player.Y);
+        Strategy s = Strategies.parse("agent:runcap, 3", PD, Player.Y);
         CustomStrategy c = assertInstanceOf(CustomStrategy.class, s);
-        assertEquals("forgiver", c.name());
+        assertEquals("runcap", c.name());
         assertEquals(List.of("3"), c.arguments());
-        assertEquals("agent:forgiver,3", c.label());
+        assertEquals("agent:runcap,3", c.label());
     }
 
     static Stream<Arguments> badSpecs() {

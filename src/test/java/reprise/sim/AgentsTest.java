@@ -34,31 +34,31 @@ class AgentsTest {
 
     static Stream<Arguments> rules() {
         return Stream.of(
-            // forgiver retaliates for at most K rounds in a row, then cooperates once (by hand from the rule)
-            Arguments.of("agent:forgiver", "alld", "CD DD DD CD DD DD CD DD DD"),
-            Arguments.of("agent:forgiver,1", "alld", "CD DD CD DD CD DD"),
-            Arguments.of("agent:forgiver,3,0", "alld", "CD DD DD DD CD DD DD DD"),
-            Arguments.of("agent:forgiver,2,1", "alld", "CD CD CD CD"),
-            Arguments.of("agent:FORGIVER,2", "tft", "CC CC CC CC"),
-            Arguments.of("agent:forgiver,1", "stft", "CD DC CD DC"));
+            // runcap retaliates for at most K rounds in a row, then cooperates once (by hand from the rule)
+            Arguments.of("agent:runcap", "alld", "CD DD DD CD DD DD CD DD DD"),
+            Arguments.of("agent:runcap,1", "alld", "CD DD CD DD CD DD"),
+            Arguments.of("agent:runcap,3,0", "alld", "CD DD DD DD CD DD DD DD"),
+            Arguments.of("agent:runcap,2,1", "alld", "CD CD CD CD"),
+            Arguments.of("agent:RUNCAP,2", "tft", "CC CC CC CC"),
+            Arguments.of("agent:runcap,1", "stft", "CD DC CD DC"));
     }
 
     @ParameterizedTest(name = "{0} vs {1}")
     @MethodSource("rules")
-    void forgiverFollowsItsRule(String x, String y, String expected) {
+    void runCapFollowsItsRule(String x, String y, String expected) {
         assertEquals(expected, play(x, y, expected.split(" ").length));
     }
 
     static Stream<Arguments> badSpecs() {
         return Stream.of(
-            Arguments.of("agent:nosuch", "unknown agent 'nosuch'; known agents: forgiver (add one through "
+            Arguments.of("agent:nosuch", "unknown agent 'nosuch'; known agents: runcap (add one through "
                 + "META-INF/services/reprise.sim.AgentFactory)"),
-            Arguments.of("agent:forgiver,0", "agent forgiver: K must be a whole number of at least 1: 0"),
-            Arguments.of("agent:forgiver,two", "agent forgiver: K must be a whole number of at least 1: 'two'"),
-            Arguments.of("agent:forgiver,2,1.5", "agent forgiver: G must be a probability in [0, 1]: 1.5"),
-            Arguments.of("agent:forgiver,2,x", "agent forgiver: G must be a probability in [0, 1]: 'x'"),
-            Arguments.of("agent:forgiver,1,0,3", "agent forgiver takes at most 2 arguments (K, G), got 3: 1,0,3; "
-                + "usage: " + new ForgiverAgentFactory().usage()));
+            Arguments.of("agent:runcap,0", "agent runcap: K must be a whole number of at least 1: 0"),
+            Arguments.of("agent:runcap,two", "agent runcap: K must be a whole number of at least 1: 'two'"),
+            Arguments.of("agent:runcap,2,1.5", "agent runcap: G must be a probability in [0, 1]: 1.5"),
+            Arguments.of("agent:runcap,2,x", "agent runcap: G must be a probability in [0, 1]: 'x'"),
+            Arguments.of("agent:runcap,1,0,3", "agent runcap takes at most 2 arguments (K, G), got 3: 1,0,3; "
+                + "usage: " + new RunCapAgentFactory().usage()));
     }
 
     @ParameterizedTest(name = "{0}")
@@ -71,8 +71,8 @@ class AgentsTest {
     @Test
     void theExampleAgentIsRegisteredForTheServiceLoader() {
         assertTrue(ServiceLoader.load(AgentFactory.class).stream()
-            .anyMatch(p -> p.type() == ForgiverAgentFactory.class), "META-INF/services lists the forgiver factory");
-        assertEquals(java.util.List.of("forgiver"), Agents.knownNames());
-        assertArrayEquals(new String[] {"forgiver"}, new String[] {Agents.factory("Forgiver").name()});
+            .anyMatch(p -> p.type() == RunCapAgentFactory.class), "META-INF/services lists the runcap factory");
+        assertEquals(java.util.List.of("runcap"), Agents.knownNames());
+        assertArrayEquals(new String[] {"runcap"}, new String[] {Agents.factory("RunCap").name()});
     }
 }

@@ -35,7 +35,7 @@ class DeterminismTest {
             Arguments.of("literal m2 geometric", SimulationSpec.of(match("tf2t", "memory1:0.8,0.1,0.6,0.3",
                 Noise.symmetric(0.02, 0.05)), Horizon.continuation(0.95), 5_000, 12).withBurnIn(4)
                 .withSnapshots(2, 30, 100).withTimeResolved(20)),
-            Arguments.of("agent", SimulationSpec.of(match("agent:forgiver,2,0.1", "gtft", Noise.symmetric(0.05, 0.05)),
+            Arguments.of("agent", SimulationSpec.of(match("agent:runcap,2,0.1", "gtft", Noise.symmetric(0.05, 0.05)),
                 Horizon.continuation(0.9), 3_000, 13).withSnapshots(5).withTimeResolved(5)),
             Arguments.of("literal forced m1", SimulationSpec.of(match("tft", "random", new Noise(0.1, 0, 0, 0.1)),
                 Horizon.rounds(40), 4_000, 14).withEnactment(Enactment.LITERAL)));

@@ -65,7 +65,7 @@ class ExactAgreementTest {
                 5, 60_000),
             new Case("asymmetric noise m1 vs m2", "memory1:0.9,0.1,0.6,0.3@0.7", m2(4), null,
                 new Noise(0.1, 0, 0, 0.2), Horizon.rounds(10), 0, 60_000),
-            new Case("forgiver agent vs wsls, geometric", "agent:forgiver,1", "wsls", "memory1:1,0,1,1",
+            new Case("runcap agent vs wsls, geometric", "agent:runcap,1", "wsls", "memory1:1,0,1,1",
                 Noise.symmetric(0.05, 0.05), Horizon.continuation(0.85), 0, 60_000),
             new Case("extortioner vs gtft, burn-in", "extort:chi=3", "gtft", null, Noise.symmetric(0.02, 0),
                 Horizon.rounds(30), 3, 40_000),

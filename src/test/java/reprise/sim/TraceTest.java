@@ -31,7 +31,7 @@ class TraceTest {
                 Noise.symmetric(0.05, 0.05)), Horizon.rounds(12), 400, 20240601L)),
             new TraceCase("literal-table", SimulationSpec.of(DeterminismTest.match("tf2t", "wsls",
                 Noise.symmetric(0.1, 0.1)), Horizon.continuation(0.9), 400, 20240602L).withBurnIn(2)),
-            new TraceCase("agent", SimulationSpec.of(DeterminismTest.match("agent:forgiver,2,0.25", "random",
+            new TraceCase("agent", SimulationSpec.of(DeterminismTest.match("agent:runcap,2,0.25", "random",
                 new Noise(0.05, 0, 0.1, 0)), Horizon.rounds(12), 400, 20240603L)));
     }
 

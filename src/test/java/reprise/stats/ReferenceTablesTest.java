@@ -88,6 +88,24 @@ class ReferenceTablesTest {
         assertEquals(z * z * l * (1 - l) / 263, (p - l) * (p - l), 1e-15);
     }
 
+    /**
+     * At x = 0 and x = n the score bounds are exactly 0 and 1 (Wilson 1927: the centre and half-width are
+     * both z^2/(2n) / (1 + z^2/n) at x = 0); in double the difference rounded to a few 1e-18 above the
+     * estimate 0 at high confidence, which broke lower &lt;= estimate downstream.
+     */
+    @ParameterizedTest(name = "n = {0}, confidence {1}")
+    @org.junit.jupiter.params.provider.CsvSource({"20, 0.95", "50, 0.9999", "400, 0.99995", "200, 0.999999"})
+    void wilsonBoundsAtZeroAndAllAreExact(long n, double confidence) {
+        for (WilsonInterval.Correction c : WilsonInterval.Correction.values()) {
+            Interval none = WilsonInterval.of(0, n, confidence, c);
+            assertEquals(0.0, none.lower(), 0.0, c.toString());
+            assertEquals(0.0, none.estimate(), 0.0);
+            Interval all = WilsonInterval.of(n, n, confidence, c);
+            assertEquals(1.0, all.upper(), 0.0, c.toString());
+            assertEquals(1.0, all.estimate(), 0.0);
+        }
+    }
+
     @Test
     void wilsonRejectsBadCounts() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,

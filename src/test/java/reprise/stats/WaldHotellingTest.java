@@ -5,6 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.stream.IntStream;
+import org.apache.commons.math3.linear.Array2DRowRealMatrix;
+import org.apache.commons.math3.linear.SingularValueDecomposition;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
 import org.apache.commons.statistics.distribution.ChiSquaredDistribution;
@@ -44,6 +46,27 @@ class WaldHotellingTest {
             // Counts sum to 6 in every game, so every row of the covariance sums to 0 (rounding only).
             assertEquals(0, sum, 1e-12);
         }
+        // Rank by singular values (Commons Math 3 SVD). The all-ones vector spans the null space that the
+        // fixed total forces; with every transition probability of this chain in (0, 1) no other
+        // combination of the four counts is constant, so exactly one singular value vanishes (the
+        // multinomial-type fact that k counts with a fixed total have rank k - 1; common practice, no source).
+        // Tolerances relative to the largest singular value (4.18): the vanishing one is rounding (observed
+        // 1.2e-14, i.e. 3e-15 relative), so 1e-12 leaves two orders of room; the third (0.41) is 0.1 of the
+        // largest, so 1e-6 cannot be reached by rounding and fails only if a real direction were lost.
+        SingularValueDecomposition svd = new SingularValueDecomposition(new Array2DRowRealMatrix(c));
+        double[] sv = svd.getSingularValues();
+        assertEquals(4, sv.length);
+        assertTrue(sv[2] > 1e-6 * sv[0], () -> "third singular value is not clearly positive: "
+            + java.util.Arrays.toString(sv));
+        assertTrue(sv[3] < 1e-12 * sv[0], () -> "fourth singular value is not zero: " + java.util.Arrays.toString(sv));
+        double[] ones = {0.5, 0.5, 0.5, 0.5};
+        double[] nullDirection = svd.getV().getColumn(3);
+        double dot = 0;
+        for (int i = 0; i < 4; i++) {
+            dot += ones[i] * nullDirection[i];
+        }
+        // The null direction is the unit all-ones vector (up to sign): |<v, 1/2>| = 1 to rounding.
+        assertEquals(1, Math.abs(dot), 1e-9);
     }
 
     @Test

@@ -3,8 +3,8 @@ package reprise.sim;
 import org.apache.commons.rng.UniformRandomProvider;
 
 /**
- * The example user agent {@code agent:forgiver[,K[,G]]}: retaliates against a defection it saw, but
- * never for more than K rounds in a row.
+ * The example user agent {@code agent:runcap[,K[,G]]}: retaliates against a defection it saw, but
+ * never for more than K rounds in a row (it caps the run of its own defections, hence the name).
  *
  * <p>Rule: cooperate in round 1. Afterwards, if the co-player was seen cooperating in the last round,
  * cooperate. If it was seen defecting, defect, except
@@ -16,13 +16,13 @@ import org.apache.commons.rng.UniformRandomProvider;
  * rounds of its own moves, kept here as one int (the length of the current run of own defections).
  * Defaults: K = 2, G = 0.
  */
-final class ForgiverAgent implements Agent {
+final class RunCapAgent implements Agent {
     private final int patience;
     private final double generosity;
     private int ownDefectionRun;
     private boolean coPlayerSeenDefecting;
 
-    ForgiverAgent(int patience, double generosity) {
+    RunCapAgent(int patience, double generosity) {
         this.patience = patience;
         this.generosity = generosity;
     }
