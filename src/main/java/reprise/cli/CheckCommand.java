@@ -85,8 +85,9 @@ final class CheckCommand implements Callable<Integer> {
         Map<Integer, Map<String, Claims.Claim>> claims = Map.of();
         List<Case> cases;
         int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
-        if (nThreads < 1) {
-            throw new IllegalArgumentException("--threads must be at least 1: " + nThreads);
+        if (nThreads < 1 || nThreads > reprise.sim.SimulationSpec.MAX_THREADS) {
+            throw new IllegalArgumentException("--threads must be between 1 and " + reprise.sim.SimulationSpec.MAX_THREADS
+                + ": " + nThreads);
         }
         try {
             e = ExperimentFile.read(file);
