@@ -9,8 +9,9 @@ import picocli.CommandLine.IVersionProvider;
  * The {@code reprise} command line.
  *
  * <p>Exit codes: 0 when everything ran and every comparison agrees; 1 when a comparison disagrees;
- * 2 for bad input or usage (one line on stderr naming the option and the value); 3 for an internal error
- * (a bug: please report it with the command line).
+ * 2 for bad input or usage (one line on stderr naming the option and the value); 3 when the machine
+ * fails the run (a file cannot be written or read: disk full, permissions; out of memory), said in one line,
+ * or for an internal error (a bug: please report it with the command line; this one prints a stack trace).
  */
 @Command(name = "reprise",
     mixinStandardHelpOptions = true,
@@ -23,7 +24,7 @@ import picocli.CommandLine.IVersionProvider;
         CommandLine.HelpCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {"0:ok, every comparison agrees", "1:a comparison disagrees",
-        "2:bad input or usage", "3:internal error"})
+        "2:bad input or usage", "3:the machine failed the run (disk full, out of memory, ...) or internal error"})
 public final class Main implements Runnable {
 
     /** Exit code when everything agrees (the code a finished run records in run.json). */
@@ -49,7 +50,19 @@ public final class Main implements Runnable {
      * @param args the arguments
      */
     public static void main(String[] args) {
-        System.exit(run(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true)));
+        int code;
+        try {
+            code = run(args, new PrintWriter(System.out, true), new PrintWriter(System.err, true));
+        } catch (OutOfMemoryError e) {
+            System.err.println(outOfMemory());
+            code = INTERNAL;
+        }
+        System.exit(code);
+    }
+
+    private static String outOfMemory() {
+        return String.format(java.util.Locale.ROOT, "reprise: out of memory (the Java heap is limited to %d MB): "
+            + "give java a larger -Xmx, or make the run smaller", Runtime.getRuntime().maxMemory() >> 20);
     }
 
     /**
@@ -81,6 +94,15 @@ public final class Main implements Runnable {
                 err.println("reprise " + commandLine.getCommandName() + ": " + ex.getMessage());
                 return BAD_INPUT;
             }
+            Throwable io = ioCause(ex);
+            if (io != null) {
+                err.println("reprise " + commandLine.getCommandName() + ": " + io.getMessage());
+                return INTERNAL;
+            }
+            if (ex.getCause() instanceof OutOfMemoryError) {
+                err.println(outOfMemory());
+                return INTERNAL;
+            }
             err.println("reprise " + commandLine.getCommandName() + ": internal error: " + ex);
             ex.printStackTrace(err);
             return INTERNAL;
@@ -97,6 +119,19 @@ public final class Main implements Runnable {
             return BAD_INPUT;
         });
         return cl;
+    }
+
+    /**
+     * @param ex a failure
+     * @return the I/O failure it is (or wraps, possibly inside a worker thread's exception), or null
+     */
+    private static Throwable ioCause(Throwable ex) {
+        for (Throwable t = ex; t != null; t = t.getCause()) {
+            if (t instanceof java.io.UncheckedIOException || t instanceof java.io.IOException) {
+                return t;
+            }
+        }
+        return null;
     }
 
     /** Reads the version from the jar manifest, falling back to "development" when run from classes. */

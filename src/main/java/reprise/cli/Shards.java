@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import reprise.run.WorkPlan;
 import reprise.run.Finished;
 import reprise.run.Job;
 import reprise.run.Merge;
@@ -62,14 +63,15 @@ final class Shards {
             if (parts.length == 2) {
                 int i = Integer.parseInt(parts[0].trim());
                 int n = Integer.parseInt(parts[1].trim());
-                if (n >= 1 && i >= 1 && i <= n) {
+                if (n >= 1 && i >= 1 && i <= n && n <= WorkPlan.MOST_SHARDS) {
                     return new int[] {i, n};
                 }
             }
         } catch (NumberFormatException ignored) {
             // reported below with the value
         }
-        throw new IllegalArgumentException("--shard must be I/N with 1 <= I <= N (or 'slurm'): " + value);
+        throw new IllegalArgumentException("--shard must be I/N with 1 <= I <= N <= " + WorkPlan.MOST_SHARDS
+            + " (or 'slurm'): " + value);
     }
 
     /** {@code check} with {@code --shard} or {@code --merge}. */

@@ -50,8 +50,9 @@ final class SimulationOptions {
             throw new IllegalArgumentException("--replicates must be at least " + minimumReplicates
                 + (why.isEmpty() ? "" : " (" + why + ")") + ": " + replicates);
         }
-        if (threads != null && threads < 1) {
-            throw new IllegalArgumentException("--threads must be at least 1: " + threads);
+        if (threads != null && (threads < 1 || threads > SimulationSpec.MAX_THREADS)) {
+            throw new IllegalArgumentException("--threads must be between 1 and " + SimulationSpec.MAX_THREADS
+                + ": " + threads);
         }
         burnIn.checked();
     }
@@ -63,6 +64,10 @@ final class SimulationOptions {
      * @throws IllegalArgumentException when the burn-in or the snapshots do not fit the horizon
      */
     SimulationSpec spec(Match match, Horizon horizon) {
+        if (SimulationSpec.squaredCountBound(replicates, horizon) > SimulationSpec.SQUARED_COUNT_LIMIT) {
+            throw new IllegalArgumentException("--replicates and --rounds/--continuation: "
+                + SimulationSpec.squaredCountMessage(replicates, horizon));
+        }
         SimulationSpec s = SimulationSpec.of(match, horizon, replicates, seed).withBurnIn(burnIn.burnIn);
         if (threads != null) {
             s = s.withThreads(threads);

@@ -87,8 +87,9 @@ final class SlurmScriptCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
-        if (tasks < 1) {
-            throw new IllegalArgumentException("--tasks must be at least 1: " + tasks);
+        if (tasks < 1 || tasks > WorkPlan.MOST_SHARDS) {
+            throw new IllegalArgumentException("--tasks must be between 1 and " + WorkPlan.MOST_SHARDS
+                + " (the most tasks a Slurm job array can have): " + tasks);
         }
         if (!(rate > 0) || Double.isInfinite(rate)) {
             throw new IllegalArgumentException("--rate must be a positive number of rounds per second: " + rate);
@@ -109,10 +110,14 @@ final class SlurmScriptCommand implements Callable<Integer> {
                 + "reprise jar on the cluster");
         }
         List<WorkPlan.Unit> units = WorkPlan.units(e, e.cases());
+        int[] owner = WorkPlan.owners(units, tasks);
+        double[] load = new double[Math.min(units.size(), tasks)];
+        for (int u = 0; u < units.size(); u++) {
+            load[owner[u]] += units.get(u).expectedRounds();
+        }
         double maxRounds = 0;
         double total = 0;
-        for (int i = 1; i <= tasks; i++) {
-            double r = WorkPlan.shard(units, i, tasks).stream().mapToDouble(WorkPlan.Unit::expectedRounds).sum();
+        for (double r : load) {
             maxRounds = Math.max(maxRounds, r);
             total += r;
         }

@@ -43,6 +43,42 @@ public final class Claims {
     }
 
     /**
+     * The line of the file on which a record starts, counting every line (comments and blank lines too),
+     * from 1: the parser's line count after the record, less the line breaks inside its quoted cells.
+     */
+    private static long physicalLine(CSVParser parser, CSVRecord rec) {
+        long breaks = 0;
+        for (String cell : rec) {
+            breaks += cell.chars().filter(ch -> ch == '\n').count();
+        }
+        return parser.getCurrentLineNumber() - breaks;
+    }
+
+    /**
+     * @return the first header name that appears twice and the header's line, or null (the header is the
+     *     first record)
+     */
+    private static Object[] duplicatedColumn(String text, CSVFormat format) {
+        CSVFormat plain = format.builder().setHeader((String[]) null).setSkipHeaderRecord(false).build();
+        try (CSVParser p = plain.parse(new java.io.StringReader(text))) {
+            java.util.Iterator<CSVRecord> it = p.iterator();
+            if (!it.hasNext()) {
+                return null;
+            }
+            java.util.Set<String> seen = new java.util.HashSet<>();
+            CSVRecord header = it.next();
+            for (String h : header) {
+                if (!h.isEmpty() && !seen.add(h)) {
+                    return new Object[] {h, (int) physicalLine(p, header)};
+                }
+            }
+            return null;
+        } catch (IOException | IllegalArgumentException | IllegalStateException e) {
+            return null;
+        }
+    }
+
+    /**
      * Reads a claims file and matches it to the experiment's cases.
      *
      * @param file the CSV file
@@ -61,27 +97,41 @@ public final class Claims {
         known.addAll(QUANTITIES);
         CSVFormat format = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).setTrim(true)
             .setIgnoreEmptyLines(true).setCommentMarker('#').build();
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8); CSVParser parser = format.parse(r)) {
+        String text;
+        try {
+            text = InputFiles.text(file, "claims file");
+        } catch (IOException | IllegalArgumentException e) {
+            problems.add(0, "file", e instanceof IOException ? "cannot be read: " + e.getMessage() : e.getMessage());
+            problems.throwIfAny();
+            throw new IllegalStateException(e);
+        }
+        Object[] duplicated = duplicatedColumn(text, format);
+        if (duplicated != null) {
+            problems.add((int) duplicated[1], (String) duplicated[0], "column appears twice in the header; give each column once");
+            problems.throwIfAny();
+        }
+        try (Reader r = new java.io.StringReader(text); CSVParser parser = format.parse(r)) {
             List<String> header = parser.getHeaderNames();
+            int headerLine = (int) Math.max(1, parser.getCurrentLineNumber());
             if (!header.contains("pair")) {
-                problems.add(1, "pair", "column is missing; the header needs pair and at least one of "
+                problems.add(headerLine, "pair", "column is missing; the header needs pair and at least one of "
                     + String.join(", ", QUANTITIES));
             }
             List<String> valueColumns = new ArrayList<>();
             for (String h : header) {
                 if (!known.contains(h)) {
-                    problems.add(1, h, "unknown column" + Problems.didYouMean(h, known) + "; known: "
+                    problems.add(headerLine, h, "unknown column" + Problems.didYouMean(h, known) + "; known: "
                         + String.join(", ", known));
                 } else if (QUANTITIES.contains(h)) {
                     valueColumns.add(h);
                 }
             }
             if (valueColumns.isEmpty()) {
-                problems.add(1, "header", "no value column; give at least one of " + String.join(", ", QUANTITIES));
+                problems.add(headerLine, "header", "no value column; give at least one of " + String.join(", ", QUANTITIES));
             }
             problems.throwIfAny();
             for (CSVRecord rec : parser) {
-                long line = rec.getRecordNumber() + 1;
+                long line = physicalLine(parser, rec);
                 if (!rec.isConsistent()) {
                     problems.add((int) line, "row", "has " + rec.size() + " cells, the header has " + header.size());
                     continue;

@@ -67,8 +67,8 @@ public final class AtomicFiles {
         Path dir = target.toAbsolutePath().getParent();
         Path tmp = null;
         try {
-            Files.createDirectories(dir);
-            tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".partial");
+            createFolders(dir);
+            tmp = createTemporary(dir, target.getFileName().toString());
             content.write(tmp);
             try {
                 Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
@@ -77,7 +77,7 @@ public final class AtomicFiles {
             }
             tmp = null;
         } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + target + ": " + e.getMessage(), e);
+            throw new UncheckedIOException("cannot write " + target + ": " + reason(e), e);
         } finally {
             if (tmp != null) {
                 try {
@@ -87,5 +87,61 @@ public final class AtomicFiles {
                 }
             }
         }
+    }
+
+    /**
+     * Creates a folder and its parents, refusing with a user-facing message when a part of the path is an
+     * existing regular file (a mistake in the path given, not a fault of the machine).
+     *
+     * @param dir the folder
+     * @throws IllegalArgumentException when a part of the path is a file
+     * @throws IOException when the folder cannot be made for another reason
+     */
+    public static void createFolders(Path dir) throws IOException {
+        for (Path p = dir.toAbsolutePath(); p != null; p = p.getParent()) {
+            if (Files.exists(p)) {
+                if (!Files.isDirectory(p)) {
+                    throw new IllegalArgumentException("cannot write into " + dir + ": " + p
+                        + " is a file, not a folder");
+                }
+                break;
+            }
+        }
+        Files.createDirectories(dir);
+    }
+
+    /**
+     * A new, empty, hidden temporary file beside the target. Unlike {@link Files#createTempFile}, which
+     * makes files readable by their owner only, it is created with the process's default permissions (the
+     * umask applies), so results in a group-shared folder stay readable by the group.
+     */
+    private static Path createTemporary(Path dir, String name) throws IOException {
+        for (int attempt = 0; ; attempt++) {
+            Path tmp = dir.resolve("." + name + "." + Long.toUnsignedString(java.util.concurrent.ThreadLocalRandom.current().nextLong(), 36)
+                + ".partial");
+            try {
+                return Files.createFile(tmp);
+            } catch (java.nio.file.FileAlreadyExistsException e) {
+                if (attempt > 100) {
+                    throw e;
+                }
+            }
+        }
+    }
+
+    /**
+     * @param e an I/O failure
+     * @return its reason in words: the message, with "no space left" and "permission denied" named
+     *     plainly
+     */
+    static String reason(IOException e) {
+        String m = String.valueOf(e.getMessage());
+        if (m.contains("No space left on device")) {
+            return "no space left on device";
+        }
+        if (e instanceof java.nio.file.AccessDeniedException) {
+            return "permission denied: " + m;
+        }
+        return m;
     }
 }

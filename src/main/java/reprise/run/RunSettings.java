@@ -2,6 +2,7 @@ package reprise.run;
 
 import java.nio.file.Path;
 import java.util.List;
+import reprise.sim.SimulationSpec;
 
 /**
  * How to run: where to write, with how many threads, what to do with an earlier run in the folder, and
@@ -18,11 +19,12 @@ public record RunSettings(Path out, int threads, boolean force, boolean resume, 
     String toolVersion) {
 
     /**
-     * @throws IllegalArgumentException if threads is below 1
+     * @throws IllegalArgumentException if threads is not between 1 and {@link SimulationSpec#MAX_THREADS}
      */
     public RunSettings {
-        if (threads < 1) {
-            throw new IllegalArgumentException("--threads must be at least 1: " + threads);
+        if (threads < 1 || threads > SimulationSpec.MAX_THREADS) {
+            throw new IllegalArgumentException("--threads must be between 1 and " + SimulationSpec.MAX_THREADS + ": "
+                + threads);
         }
         commandLine = List.copyOf(commandLine);
     }

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
+import java.util.PriorityQueue;
 import reprise.experiment.Case;
 import reprise.experiment.Experiment;
 
@@ -63,6 +64,44 @@ public final class WorkPlan {
     }
 
     /**
+     * The most shards a run may be cut into: Slurm's largest possible MaxArraySize is 4000001, so no
+     * job array has more tasks than this (slurm.conf documentation, MaxArraySize; from memory).
+     */
+    public static final int MOST_SHARDS = 4_000_000;
+
+    /**
+     * The shard (from 0) of every unit, by the rule of {@link #shard}. Only the first min(units, n) shards
+     * can receive work (all start empty, ties go to the lowest shard), so a heap over those finds the
+     * least-loaded shard in O(log) time and the cost does not grow with n.
+     *
+     * @param units all units
+     * @param shards n, at least 1
+     * @return owner[u], the 0-based shard of unit u
+     */
+    public static int[] owners(List<Unit> units, int shards) {
+        List<Integer> order = new ArrayList<>();
+        for (int i = 0; i < units.size(); i++) {
+            order.add(i);
+        }
+        order.sort(Comparator.<Integer>comparingDouble(i -> -units.get(i).expectedRounds()).thenComparing(i -> i));
+        int open = Math.min(units.size(), shards);
+        double[] load = new double[open];
+        PriorityQueue<Integer> leastLoaded = new PriorityQueue<>(Math.max(1, open),
+            Comparator.<Integer>comparingDouble(s -> load[s]).thenComparing(s -> s));
+        for (int s = 0; s < open; s++) {
+            leastLoaded.add(s);
+        }
+        int[] owner = new int[units.size()];
+        for (int i : order) {
+            int best = leastLoaded.poll();
+            owner[i] = best;
+            load[best] += units.get(i).expectedRounds();
+            leastLoaded.add(best);
+        }
+        return owner;
+    }
+
+    /**
      * The units of shard i of n, balanced by expected rounds: units are taken largest first (ties by
      * position) and each goes to the shard with the least work so far (ties to the lowest shard). Every
      * unit belongs to exactly one shard.
@@ -73,26 +112,11 @@ public final class WorkPlan {
      * @return shard i's units, in plan order
      */
     public static List<Unit> shard(List<Unit> units, int shard, int shards) {
-        if (shards < 1 || shard < 1 || shard > shards) {
-            throw new IllegalArgumentException("shard must be I/N with 1 <= I <= N: " + shard + "/" + shards);
+        if (shards < 1 || shards > MOST_SHARDS || shard < 1 || shard > shards) {
+            throw new IllegalArgumentException("shard must be I/N with 1 <= I <= N <= " + MOST_SHARDS + ": " + shard
+                + "/" + shards);
         }
-        List<Integer> order = new ArrayList<>();
-        for (int i = 0; i < units.size(); i++) {
-            order.add(i);
-        }
-        order.sort(Comparator.<Integer>comparingDouble(i -> -units.get(i).expectedRounds()).thenComparing(i -> i));
-        double[] load = new double[shards];
-        int[] owner = new int[units.size()];
-        for (int i : order) {
-            int best = 0;
-            for (int s = 1; s < shards; s++) {
-                if (load[s] < load[best]) {
-                    best = s;
-                }
-            }
-            owner[i] = best;
-            load[best] += units.get(i).expectedRounds();
-        }
+        int[] owner = owners(units, shards);
         List<Unit> mine = new ArrayList<>();
         for (int i = 0; i < units.size(); i++) {
             if (owner[i] == shard - 1) {

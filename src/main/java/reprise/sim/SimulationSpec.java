@@ -82,9 +82,59 @@ public record SimulationSpec(Match match, Horizon horizon, long replicates, long
             throw new IllegalArgumentException("time-resolved rounds are too many for one array (at most "
                 + (Integer.MAX_VALUE - 16) / 4 + "): " + timeResolvedRounds);
         }
-        if (threads < 1) {
-            throw new IllegalArgumentException("threads must be at least 1: " + threads);
+        if (threads < 1 || threads > MAX_THREADS) {
+            throw new IllegalArgumentException("threads must be between 1 and " + MAX_THREADS + ": " + threads);
         }
+        double squares = squaredCountBound(replicates, horizon);
+        if (squares > SQUARED_COUNT_LIMIT) {
+            throw new IllegalArgumentException(squaredCountMessage(replicates, horizon));
+        }
+    }
+
+    /**
+     * The most worker threads a run may ask for. Results do not depend on the thread count, so more
+     * threads than this only cost memory (each worker holds its own kernel and tallies).
+     */
+    public static final int MAX_THREADS = 1024;
+
+    /**
+     * The largest allowed value of {@link #squaredCountBound}: the per-game sums of squared counts are
+     * 64-bit integers, and a quarter of their range leaves room for the cross products.
+     */
+    public static final double SQUARED_COUNT_LIMIT = Long.MAX_VALUE / 4.0;
+
+    /**
+     * An upper bound (in expectation, for random lengths) of the sum over the games of a game's squared
+     * length, G max(n^2) for fixed n and G E[L^2] = G (1 + delta) / (1 - delta)^2 for a continuation
+     * probability delta: the size of the largest per-game sum of squares the tallies will hold.
+     *
+     * @param replicates the number of games
+     * @param horizon the horizon
+     * @return the bound, possibly infinite
+     */
+    public static double squaredCountBound(long replicates, Horizon horizon) {
+        double secondMoment;
+        if (horizon instanceof Horizon.Rounds r) {
+            secondMoment = (double) r.count() * r.count();
+        } else {
+            double delta = ((Horizon.Continuation) horizon).probability();
+            secondMoment = (1 + delta) / ((1 - delta) * (1 - delta));
+        }
+        return replicates * secondMoment;
+    }
+
+    /**
+     * @param replicates the number of games
+     * @param horizon the horizon
+     * @return the one-line refusal of a run whose per-game sums of squares would overflow
+     */
+    public static String squaredCountMessage(long replicates, Horizon horizon) {
+        return String.format(java.util.Locale.ROOT, "%d game%s of %s would overflow the per-game sums of squared "
+            + "counts (about %.3g, the limit is %.3g): use fewer games or shorter games", replicates,
+            replicates == 1 ? "" : "s",
+            horizon instanceof Horizon.Rounds r ? r.count() + " rounds" : "random length (continuation "
+                + ((Horizon.Continuation) horizon).probability() + ")",
+            squaredCountBound(replicates, horizon), SQUARED_COUNT_LIMIT);
     }
 
     /**

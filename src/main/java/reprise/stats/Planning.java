@@ -50,7 +50,8 @@ public final class Planning {
         Checks.positive("half-width", halfWidth);
         double tail = 0.5 * (1 - Checks.level("confidence", confidence));
         double z = STANDARD_NORMAL.inverseSurvivalProbability(tail);
-        long g = Math.max(2, (long) Math.ceil(z * z * perGameVariance / (halfWidth * halfWidth)));
+        long g = Math.max(2, (long) Math.ceil(planned(z * z * perGameVariance / (halfWidth * halfWidth),
+            "a half-width of " + halfWidth, "games")));
         while (TDistribution.of(g - 1).inverseSurvivalProbability(tail) * Math.sqrt(perGameVariance / g) > halfWidth) {
             g++;
         }
@@ -76,7 +77,7 @@ public final class Planning {
         double za = STANDARD_NORMAL.inverseSurvivalProbability(0.5 * Checks.level("alpha", alpha));
         double zb = STANDARD_NORMAL.inverseCumulativeProbability(Checks.level("power", power));
         double g = (za + zb) * (za + zb) * perGameVariance / (deviation * deviation);
-        return Math.max(1, (long) Math.ceil(g));
+        return Math.max(1, (long) Math.ceil(planned(g, "a deviation of " + deviation, "games (or rounds)")));
     }
 
     /**
@@ -158,7 +159,24 @@ public final class Planning {
         Checks.positive("asymptotic variance", asymptoticVariance);
         Checks.positive("half-width", halfWidth);
         double z = STANDARD_NORMAL.inverseSurvivalProbability(0.5 * (1 - Checks.level("confidence", confidence)));
-        return Math.max(1, (long) Math.ceil(z * z * asymptoticVariance / (halfWidth * halfWidth)));
+        return Math.max(1, (long) Math.ceil(planned(z * z * asymptoticVariance / (halfWidth * halfWidth),
+            "a half-width of " + halfWidth, "rounds of one chain")));
+    }
+
+    /**
+     * The most games (or rounds of one chain) a plan may ask for: 10^15, far beyond any simulation that
+     * can be run (about ten days of rounds at 10^9 rounds per second for one-round games) and well inside
+     * the range where a double still counts whole numbers exactly.
+     */
+    public static final double MOST_PLANNED = 1e15;
+
+    private static double planned(double needed, String target, String unit) {
+        if (!(needed <= MOST_PLANNED)) {
+            throw new IllegalArgumentException(String.format(java.util.Locale.ROOT, "%s needs about %.3g %s, more "
+                + "than any simulation can run (at most %.0e): ask for a larger target", target, needed, unit,
+                MOST_PLANNED));
+        }
+        return needed;
     }
 
     /**

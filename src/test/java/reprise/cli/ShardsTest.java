@@ -191,7 +191,7 @@ class ShardsTest {
     @ValueSource(strings = {"0/3", "4/3", "1/0", "a/b", "3", "1/2/3", ""})
     void badShardNumbers(String value) {
         IllegalArgumentException ex = assertThrows(IllegalArgumentException.class, () -> Shards.parse(value, Map.of()));
-        assertEquals("--shard must be I/N with 1 <= I <= N (or 'slurm'): " + value, ex.getMessage());
+        assertEquals("--shard must be I/N with 1 <= I <= N <= 4000000 (or 'slurm'): " + value, ex.getMessage());
     }
 
     static Stream<Arguments> slurmEnvironments() {

@@ -38,7 +38,7 @@ class SimulationSpecTest {
                 "time-resolved rounds exceed the game's 10 rounds: 11"),
             Arguments.of((Supplier<Object>) () -> BASE.withTimeResolved(-2),
                 "time-resolved rounds must be at least 0: -2"),
-            Arguments.of((Supplier<Object>) () -> BASE.withThreads(0), "threads must be at least 1: 0"));
+            Arguments.of((Supplier<Object>) () -> BASE.withThreads(0), "threads must be between 1 and 1024: 0"));
     }
 
     @ParameterizedTest(name = "{1}")
