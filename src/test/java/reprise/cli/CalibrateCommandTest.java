@@ -125,7 +125,7 @@ class CalibrateCommandTest {
 
     static Stream<Arguments> badInput() {
         return Stream.of(
-            Arguments.of(new String[] {"--repetitions", "0"}, "--repetitions must be at least 1: 0"),
+            Arguments.of(new String[] {"--repetitions", "0"}, "--repetitions must be between 1 and 100000 (each repetition's test results are kept in memory): 0"),
             Arguments.of(new String[] {"--alpha", "1"}, "--alpha must be in (0, 1): 1.0"),
             Arguments.of(new String[] {"--alpha", "NaN"}, "--alpha must be in (0, 1): NaN"),
             Arguments.of(new String[] {"--predict-noise", "1.5"}, "--predict-noise must be a probability in [0, 1]"),

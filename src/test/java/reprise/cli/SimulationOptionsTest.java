@@ -43,14 +43,14 @@ class SimulationOptionsTest {
     static Stream<Arguments> badInput() {
         return Stream.of(
             Arguments.of("simulate", new String[] {"--replicates", "0"}, "--replicates must be at least 1: 0"),
-            Arguments.of("simulate", new String[] {"--threads", "0"}, "--threads must be at least 1: 0"),
+            Arguments.of("simulate", new String[] {"--threads", "0"}, "--threads must be between 1 and 1024: 0"),
             Arguments.of("simulate", new String[] {"--burn-in", "-1"}, "--burn-in must be at least 0: -1"),
             Arguments.of("simulate", new String[] {"--burn-in", "10"},
                 "burn-in must be shorter than the game (10 rounds): 10"),
             Arguments.of("simulate", new String[] {"--snapshots", "0"}, "snapshot rounds must be at least 1: 0"),
             Arguments.of("calibrate", new String[] {"--replicates", "0"},
                 "--replicates must be at least 2 (the z tests estimate a standard error): 0"),
-            Arguments.of("calibrate", new String[] {"--threads", "0"}, "--threads must be at least 1: 0"),
+            Arguments.of("calibrate", new String[] {"--threads", "0"}, "--threads must be between 1 and 1024: 0"),
             Arguments.of("calibrate", new String[] {"--burn-in", "-1"}, "--burn-in must be at least 0: -1"),
             Arguments.of("calibrate", new String[] {"--burn-in", "10"},
                 "--burn-in must be shorter than the predicted game (10 rounds): 10"),
