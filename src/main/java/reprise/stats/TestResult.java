@@ -15,8 +15,38 @@ package reprise.stats;
  * @param pValue the p-value in [0, 1]
  * @param note a one-line remark on how the test was done (method used, components dropped, why p = 0);
  *     empty when there is nothing to say
+ * @param smallSample what was done because expected counts were too small for the large-sample reference
+ *     distribution ({@link SmallSample#NONE} when nothing was), the structured form of part of the note
  */
-public record TestResult(double statistic, double degreesOfFreedom, double pValue, String note) {
+public record TestResult(double statistic, double degreesOfFreedom, double pValue, String note,
+    SmallSample smallSample) {
+
+    /**
+     * What a test did about expected counts too small for its chi-square or normal reference
+     * distribution. A new remedy is added here as a constant; readers switch on it.
+     */
+    public enum SmallSample {
+        /** Nothing: the large-sample reference distribution was used as is (or no reference was needed). */
+        NONE,
+        /** Sparse cells of a contingency table were pooled before the chi-square test. */
+        POOLED,
+        /** An exact test by complete enumeration replaced the chi-square approximation. */
+        EXACT,
+        /** A Monte Carlo estimate of the exact p-value replaced the chi-square approximation. */
+        MONTE_CARLO
+    }
+
+    /**
+     * A result with {@link SmallSample#NONE}.
+     *
+     * @param statistic not NaN
+     * @param degreesOfFreedom at least 0; positive infinity for a normal (z) reference
+     * @param pValue in [0, 1]
+     * @param note not null
+     */
+    public TestResult(double statistic, double degreesOfFreedom, double pValue, String note) {
+        this(statistic, degreesOfFreedom, pValue, note, SmallSample.NONE);
+    }
 
     /**
      * Validates the result.
@@ -25,6 +55,7 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
      * @param degreesOfFreedom at least 0; positive infinity for a normal (z) reference
      * @param pValue in [0, 1]
      * @param note not null
+     * @param smallSample not null
      */
     public TestResult {
         if (Double.isNaN(statistic)) {
@@ -38,6 +69,9 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
         if (note == null) {
             throw new IllegalArgumentException("note must not be null (use an empty string)");
         }
+        if (smallSample == null) {
+            throw new IllegalArgumentException("small-sample method must not be null (use NONE)");
+        }
     }
 
     /**
@@ -49,6 +83,17 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
     public boolean reject(double alpha) {
         Checks.level("significance level alpha", alpha);
         return pValue < alpha;
+    }
+
+    /**
+     * The same result with more note text and a small-sample method.
+     *
+     * @param extra appended to the note as is (include any separator)
+     * @param method the small-sample method now in effect
+     * @return a new result
+     */
+    public TestResult withSmallSample(String extra, SmallSample method) {
+        return new TestResult(statistic, degreesOfFreedom, pValue, note + extra, method);
     }
 
     static TestResult impossible(double degreesOfFreedom, String why) {
