@@ -109,7 +109,7 @@ public final class Curves {
                 double[] pi = r.exact().prediction().stationary();
                 double[] u = r.c().match().game().payoffX();
                 Estimate est = ReplicateInference.payoff(s, u);
-                out.add(new Point("error", group, "simulated", n, Math.abs(est.value() - Quantities.dot(u, pi)),
+                out.add(new Point("error", group, "simulated", n, Math.abs(est.value() - CaseAnalysis.dot(u, pi)),
                     Double.NaN, Double.NaN, Double.NaN));
             }
         }
@@ -135,8 +135,8 @@ public final class Curves {
                     Double.NaN));
             }
             if (pi != null) {
-                out.add(new Point("error", group, "exact bias", n, Math.abs(Quantities.dot(u, f) - Quantities.dot(u, pi)),
-                    Double.NaN, Double.NaN, Double.NaN));
+                out.add(new Point("error", group, "exact bias", n,
+                    Math.abs(CaseAnalysis.dot(u, f) - CaseAnalysis.dot(u, pi)), Double.NaN, Double.NaN, Double.NaN));
             }
         }
         if (pi != null) {
@@ -153,9 +153,9 @@ public final class Curves {
             GameSummary s = CaseAnalysis.summary(r.simulation());
             if (r.exact() != null) {
                 double[] f = r.exact().frequencies();
-                out.add(new Point("payoff", group, "X exact", delta, Quantities.dot(r.c().match().game().payoffX(), f),
+                out.add(new Point("payoff", group, "X exact", delta, CaseAnalysis.dot(r.c().match().game().payoffX(), f),
                     Double.NaN, Double.NaN, Double.NaN));
-                out.add(new Point("payoff", group, "Y exact", delta, Quantities.dot(r.c().match().game().payoffY(), f),
+                out.add(new Point("payoff", group, "Y exact", delta, CaseAnalysis.dot(r.c().match().game().payoffY(), f),
                     Double.NaN, Double.NaN, Double.NaN));
             }
             if (s.games() >= 2 && s.sumLength() > 0) {
@@ -213,8 +213,8 @@ public final class Curves {
                 : ((Horizon.Continuation) r.c().horizon()).probability();
             String group = group(r.c(), false);
             for (ResultRow row : rows) {
-                if (row.caseIndex() == r.c().index() && row.quantity().equals("payoff_x")
-                    && row.comparison().equals(Comparisons.STATIONARY)) {
+                if (row.caseIndex() == r.c().index() && row.subject() == BaseQuantity.PAYOFF_X
+                    && row.comparisonKind() == ComparisonKind.STATIONARY) {
                     out.add(new Point("deviation", group, "|observed - stationary| payoff of X", noise, h,
                         Math.abs(row.observed() - row.predicted()), Double.NaN, Double.NaN));
                     out.add(new Point("verdicts", group, "stationary payoff of X within tolerance", noise, h,

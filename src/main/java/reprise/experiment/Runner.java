@@ -40,6 +40,17 @@ public final class Runner {
      * @param disagrees whether any row that can make the experiment fail disagrees
      */
     public record Outcome(List<ResultRow> rows, List<String> warnings, boolean disagrees) {
+        /**
+         * Copies the lists.
+         *
+         * @param rows rows
+         * @param warnings warnings
+         * @param disagrees flag
+         */
+        public Outcome {
+            rows = List.copyOf(rows);
+            warnings = List.copyOf(warnings);
+        }
     }
 
     /**
@@ -214,13 +225,13 @@ public final class Runner {
      *
      * @param e the experiment
      * @param results the case results, in case order
-     * @param claims claims by case index (may be empty)
+     * @param claims claims by case index, each by the quantity's name in the claims file (may be empty)
      * @return the outcome
      */
     public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, Map<String, Claims.Claim>> claims) {
         List<Comparisons.Pending> pending = new ArrayList<>();
         for (CaseResult r : results) {
-            pending.addAll(Comparisons.rows(e, r, claims.get(r.c().index())));
+            pending.addAll(Comparisons.rows(e, r, byQuantity(claims.get(r.c().index()))));
         }
         List<Integer> diff = new ArrayList<>();
         List<Integer> equiv = new ArrayList<>();
@@ -272,6 +283,16 @@ public final class Runner {
                 + "is right (use correction: holm)");
         }
         return new Outcome(rows, warnings, disagrees);
+    }
+
+    /** The claims of one case keyed by quantity, in the order of the claims file; null stays null. */
+    private static Map<BaseQuantity, Claims.Claim> byQuantity(Map<String, Claims.Claim> claims) {
+        if (claims == null) {
+            return null;
+        }
+        Map<BaseQuantity, Claims.Claim> out = new java.util.LinkedHashMap<>();
+        claims.forEach((name, claim) -> out.put(BaseQuantity.ofLabel(name), claim));
+        return out;
     }
 
     private static double[] adjust(Experiment e, List<Comparisons.Pending> pending, List<Integer> idx, boolean diff) {

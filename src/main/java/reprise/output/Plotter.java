@@ -5,8 +5,10 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.TreeSet;
 import reprise.experiment.Curves;
+import reprise.experiment.TestId;
 import reprise.game.State;
 import reprise.output.figures.CalibrationData;
 import reprise.output.figures.ConvergenceData;
@@ -105,10 +107,13 @@ public final class Plotter {
             }
             for (org.apache.commons.csv.CSVRecord rec : p) {
                 String name = rec.get(0);
-                if (!name.startsWith("z ")) {
-                    String label = name.contains("ILLUSTRATION") ? "pooled rounds chi-square (invalid)" : name;
-                    byTest.computeIfAbsent(label, k -> new ArrayList<>()).add(Double.parseDouble(rec.get(2)));
+                Optional<TestId> test = TestId.ofLabel(name);
+                if (test.isPresent() && test.get() instanceof TestId.ZScore) {
+                    continue;
                 }
+                String label = test.isPresent() && test.get().illustration() ? "pooled rounds chi-square (invalid)"
+                    : name;
+                byTest.computeIfAbsent(label, k -> new ArrayList<>()).add(Double.parseDouble(rec.get(2)));
             }
         } catch (java.io.IOException | NumberFormatException e) {
             throw new IllegalArgumentException(calibrationCsv + ": cannot be read: " + e.getMessage(), e);

@@ -23,17 +23,57 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
 
     /**
      * What a test did about expected counts too small for its chi-square or normal reference
-     * distribution. A new remedy is added here as a constant; readers switch on it.
+     * distribution: the method, and for pooling the number of cells merged into another.
+     *
+     * @param method the remedy; a new remedy is added as a constant of {@link Method}
+     * @param cellsPooled the cells merged into another: at least 1 for {@link Method#POOLED}, else 0
      */
-    public enum SmallSample {
-        /** Nothing: the large-sample reference distribution was used as is (or no reference was needed). */
-        NONE,
-        /** Sparse cells of a contingency table were pooled before the chi-square test. */
-        POOLED,
-        /** An exact test by complete enumeration replaced the chi-square approximation. */
-        EXACT,
-        /** A Monte Carlo estimate of the exact p-value replaced the chi-square approximation. */
-        MONTE_CARLO
+    public record SmallSample(Method method, int cellsPooled) {
+
+        /** Nothing was done. */
+        public static final SmallSample NONE = new SmallSample(Method.NONE, 0);
+        /** An exact test by enumeration. */
+        public static final SmallSample EXACT = new SmallSample(Method.EXACT, 0);
+        /** A Monte Carlo estimate of the exact p-value. */
+        public static final SmallSample MONTE_CARLO = new SmallSample(Method.MONTE_CARLO, 0);
+
+        /** The remedies. */
+        public enum Method {
+            /** Nothing: the large-sample reference distribution was used as is (or none was needed). */
+            NONE,
+            /** Sparse cells of a contingency table were pooled before the chi-square test. */
+            POOLED,
+            /** An exact test by complete enumeration replaced the chi-square approximation. */
+            EXACT,
+            /** A Monte Carlo estimate of the exact p-value replaced the chi-square approximation. */
+            MONTE_CARLO
+        }
+
+        /**
+         * Validates the pair.
+         *
+         * @param method not null
+         * @param cellsPooled positive exactly for pooling
+         */
+        public SmallSample {
+            if (method == null) {
+                throw new IllegalArgumentException("small-sample method must not be null (use NONE)");
+            }
+            if ((method == Method.POOLED) != (cellsPooled > 0) || cellsPooled < 0) {
+                throw new IllegalArgumentException("cells pooled must be positive for pooling and 0 otherwise: "
+                    + method + ", " + cellsPooled);
+            }
+        }
+
+        /**
+         * Pooling of sparse cells.
+         *
+         * @param cells the cells merged into another, at least 1
+         * @return the remedy
+         */
+        public static SmallSample pooled(int cells) {
+            return new SmallSample(Method.POOLED, cells);
+        }
     }
 
     /**
@@ -89,11 +129,11 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
      * The same result with more note text and a small-sample method.
      *
      * @param extra appended to the note as is (include any separator)
-     * @param method the small-sample method now in effect
+     * @param remedy the small-sample remedy now in effect
      * @return a new result
      */
-    public TestResult withSmallSample(String extra, SmallSample method) {
-        return new TestResult(statistic, degreesOfFreedom, pValue, note + extra, method);
+    public TestResult withSmallSample(String extra, SmallSample remedy) {
+        return new TestResult(statistic, degreesOfFreedom, pValue, note + extra, remedy);
     }
 
     static TestResult impossible(double degreesOfFreedom, String why) {
