@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.TreeSet;
 import reprise.experiment.Curves;
+import reprise.experiment.FigureKind;
 import reprise.experiment.TestId;
 import reprise.game.State;
 import reprise.output.figures.CalibrationData;
@@ -35,7 +36,7 @@ public final class Plotter {
      * @param group the group it shows
      * @param result the files and notes (no files when the figure had nothing to draw; a note says why)
      */
-    public record Drawn(String kind, String group, FigureResult result) {
+    public record Drawn(FigureKind kind, String group, FigureResult result) {
     }
 
     private Plotter() {
@@ -55,24 +56,24 @@ public final class Plotter {
      */
     public static List<Drawn> draw(List<Curves.Point> points, Path directory) {
         Figures figures = Figures.withDefaults();
-        Map<String, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
+        Map<FigureKind, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
         for (Curves.Point p : points) {
             byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
                 .computeIfAbsent(p.group(), k -> new ArrayList<>()).add(p);
         }
         List<Drawn> out = new ArrayList<>();
         byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> {
-            String base = FileNames.safe(figure + "-" + group);
+            String base = FileNames.safe(figure.label() + "-" + group);
             FigureResult r;
             try {
                 r = switch (figure) {
-                    case "convergence" -> convergence(figures, directory, base, pts);
-                    case "error" -> error(figures, directory, base, pts);
-                    case "payoff" -> payoff(figures, directory, base, pts);
-                    case "distribution" -> distribution(figures, directory, base, pts);
-                    case "deviation" -> deviation(figures, directory, base, pts);
-                    case "verdicts" -> verdicts(figures, directory, base, pts);
-                    default -> null;
+                    case CONVERGENCE -> convergence(figures, directory, base, pts);
+                    case ERROR -> error(figures, directory, base, pts);
+                    case PAYOFF -> payoff(figures, directory, base, pts);
+                    case DISTRIBUTION -> distribution(figures, directory, base, pts);
+                    case DEVIATION -> deviation(figures, directory, base, pts);
+                    case VERDICTS -> verdicts(figures, directory, base, pts);
+                    case CALIBRATION -> null;
                 };
             } catch (IllegalArgumentException ex) {
                 if (!String.valueOf(ex.getMessage()).contains(NOTHING_TO_DRAW)) {
@@ -123,7 +124,7 @@ public final class Plotter {
             .toArray())));
         FigureResult result = Figures.withDefaults().pValueCalibration(directory, "calibration-qq",
             new CalibrationData("", samples));
-        return new Drawn("calibration", "p-values against uniform quantiles", result);
+        return new Drawn(FigureKind.CALIBRATION, "p-values against uniform quantiles", result);
     }
 
     private static List<Curves.Point> series(List<Curves.Point> pts, String name) {

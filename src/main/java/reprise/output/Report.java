@@ -327,16 +327,16 @@ public final class Report {
 
     private static String caption(Plotter.Drawn d) {
         String what = switch (d.kind()) {
-            case "convergence" -> "State frequencies against game length (log scale): simulated with intervals, "
+            case CONVERGENCE -> "State frequencies against game length (log scale): simulated with intervals, "
                 + "exact finite-horizon expectation (solid), stationary value (dashed)";
-            case "error" -> "Distance of the simulated payoff of X from its stationary value against game length, "
+            case ERROR -> "Distance of the simulated payoff of X from its stationary value against game length, "
                 + "with the exact bias and the sampling slope -1/2";
-            case "payoff" -> "Payoffs per round against the continuation probability: exact and simulated";
-            case "distribution" -> "State at round t: exact v_1 M^(t-1) and simulated snapshots";
-            case "deviation" -> "|observed - stationary| payoff of X over execution error and game length";
-            case "verdicts" -> "Does the stationary payoff of X hold within the tolerance, over execution error and "
+            case PAYOFF -> "Payoffs per round against the continuation probability: exact and simulated";
+            case DISTRIBUTION -> "State at round t: exact v_1 M^(t-1) and simulated snapshots";
+            case DEVIATION -> "|observed - stationary| payoff of X over execution error and game length";
+            case VERDICTS -> "Does the stationary payoff of X hold within the tolerance, over execution error and "
                 + "game length";
-            default -> d.kind();
+            case CALIBRATION -> d.kind().label();
         };
         return what + " (" + d.group() + ")";
     }

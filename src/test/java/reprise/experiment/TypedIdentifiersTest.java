@@ -83,6 +83,16 @@ class TypedIdentifiersTest {
         }
     }
 
+    @Test
+    void figuresHaveTheirFileNames() {
+        assertEquals(List.of("convergence", "error", "payoff", "distribution", "deviation", "verdicts", "calibration"),
+            Stream.of(FigureKind.values()).map(FigureKind::label).toList());
+        for (FigureKind k : FigureKind.values()) {
+            assertEquals(Optional.of(k), FigureKind.ofLabel(k.label()));
+        }
+        assertEquals(Optional.empty(), FigureKind.ofLabel("histogram"));
+    }
+
     /**
      * Weights for the stage game R, S, T, P = 3, 0, 5, 1 (Axelrod, R. (1984). The Evolution of Cooperation.
      * Basic Books, the payoff matrix of chapter 1): X's payoffs in CC, CD, DC, DD are R, S, T, P and Y's are
