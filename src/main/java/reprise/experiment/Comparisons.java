@@ -59,6 +59,7 @@ public final class Comparisons {
             return q.weights(r.c().match().game());
         }
 
+        /** The quantities the experiment reports: today the base quantities of its groups; derived ones join here. */
         List<Quantity> reported() {
             return List.<Quantity>of(BaseQuantity.values()).stream()
                 .filter(q -> e.quantities().contains(q.group())).toList();
