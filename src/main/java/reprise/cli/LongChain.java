@@ -3,10 +3,11 @@ package reprise.cli;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
+import java.util.List;
 import java.util.Locale;
 import reprise.chain.NoPredictionException;
 import reprise.chain.Prediction;
-import reprise.experiment.Quantities;
+import reprise.experiment.BaseQuantity;
 import reprise.game.Horizon;
 import reprise.game.Match;
 import reprise.sim.SimulationResult;
@@ -46,10 +47,11 @@ final class LongChain {
         }
         double[][] cov = p == null ? null : p.asymptoticCovariance();
         double[] pi = p == null ? null : p.stationary();
-        String[] names = {"CC", "CD", "DC", "DD", "payoff_x", "payoff_y"};
-        Row[] rows = new Row[names.length];
-        for (int q = 0; q < names.length; q++) {
-            double[] w = Quantities.weights(names[q], match.game());
+        List<BaseQuantity> quantities = List.of(BaseQuantity.CC, BaseQuantity.CD, BaseQuantity.DC, BaseQuantity.DD,
+            BaseQuantity.PAYOFF_X, BaseQuantity.PAYOFF_Y);
+        Row[] rows = new Row[quantities.size()];
+        for (int q = 0; q < rows.length; q++) {
+            double[] w = quantities.get(q).weights(match.game());
             Estimate bm = BatchMeans.estimate(path, w);
             Interval exact = null;
             if (cov != null) {
@@ -61,7 +63,7 @@ final class LongChain {
                 }
                 exact = BatchMeans.fromAsymptoticVariance(bm.value(), Math.max(0, v), path.length).interval(confidence);
             }
-            rows[q] = new Row(names[q], bm.value(), bm.interval(confidence), bm.replicates(), exact,
+            rows[q] = new Row(quantities.get(q).label(), bm.value(), bm.interval(confidence), bm.replicates(), exact,
                 pi == null ? Double.NaN : dot(w, pi));
         }
         return rows;

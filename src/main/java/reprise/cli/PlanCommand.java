@@ -14,7 +14,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 import reprise.chain.NoPredictionException;
 import reprise.experiment.CaseAnalysis;
-import reprise.experiment.Quantities;
+import reprise.experiment.BaseQuantity;
 import reprise.game.Horizon;
 import reprise.game.Match;
 import reprise.stats.Planning;
@@ -31,7 +31,8 @@ import reprise.stats.Planning;
 final class PlanCommand implements Callable<Integer> {
 
     /** The quantities planned for: the four state frequencies and both payoffs per round. */
-    static final List<String> QUANTITIES = List.of("CC", "CD", "DC", "DD", "payoff_x", "payoff_y");
+    static final List<BaseQuantity> QUANTITIES = List.of(BaseQuantity.CC, BaseQuantity.CD, BaseQuantity.DC,
+        BaseQuantity.DD, BaseQuantity.PAYOFF_X, BaseQuantity.PAYOFF_Y);
 
     /** Variances below this times the largest squared weight are rounding error, taken as zero. */
     static final double ZERO_VARIANCE = 1e-12;
@@ -129,8 +130,8 @@ final class PlanCommand implements Callable<Integer> {
         double[][] payoffs = exact.prediction().payoffCovariance();
         List<Row> rows = new ArrayList<>();
         for (int i = 0; i < QUANTITIES.size(); i++) {
-            String q = QUANTITIES.get(i);
-            double[] w = Quantities.weights(q, match.game());
+            BaseQuantity q = QUANTITIES.get(i);
+            double[] w = q.weights(match.game());
             double se = exact.standardError(w, 1);
             double perGame = se * se;
             double asymptotic = Double.NaN;
@@ -163,7 +164,7 @@ final class PlanCommand implements Callable<Integer> {
             } else {
                 notes.add("no long-run variance: a long chain settles on the exact value");
             }
-            rows.add(new Row(q, exact.value(w), perGame, gw, gd, asymptotic, rw, rd, String.join("; ", notes)));
+            rows.add(new Row(q.label(), exact.value(w), perGame, gw, gd, asymptotic, rw, rd, String.join("; ", notes)));
         }
         return rows;
     }

@@ -40,7 +40,7 @@ final class PlotCommand implements Callable<Integer> {
         }
         for (Plotter.Drawn d : drawn) {
             d.result().files().forEach(f -> spec.commandLine().getOut().println(f));
-            d.result().notes().forEach(n -> spec.commandLine().getErr().println("plot: " + d.kind() + " (" + d.group()
+            d.result().notes().forEach(n -> spec.commandLine().getErr().println("plot: " + d.kind().label() + " (" + d.group()
                 + "): " + n));
         }
         return Main.OK;

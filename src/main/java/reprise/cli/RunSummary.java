@@ -25,13 +25,14 @@ final class RunSummary {
     static void print(PrintWriter stdout, Experiment e, Finished finished) {
         Runner.Outcome outcome = finished.outcome();
         long bad = outcome.rows().stream().filter(r -> r.verdict() == Verdict.DISAGREES
-            && !r.comparison().equals("stationary")).count();
+            && r.comparisonKind().countsTowardsExit()).count();
         stdout.printf(Locale.ROOT, "%s: %d cases, %d comparisons, %s; results in %s%n", e.name(),
             finished.results().size(), outcome.rows().size(), bad == 0 ? "no disagreement" : bad + " disagree",
             finished.folder());
         outcome.rows().stream().filter(r -> r.verdict() == Verdict.DISAGREES
-            && !r.comparison().equals("stationary")).forEach(r -> stdout.printf(Locale.ROOT,
-            "  disagrees: %s %s (%s): predicted %s, observed %s%n", r.caseId(), r.quantity(), r.comparison(),
+            && r.comparisonKind().countsTowardsExit()).forEach(r -> stdout.printf(Locale.ROOT,
+            "  disagrees: %s %s (%s): predicted %s, observed %s%n", r.caseId(), r.subject().label(),
+            r.comparisonKind().label(),
             Double.isNaN(r.predicted()) ? "-" : String.format(Locale.ROOT, "%.6g", r.predicted()),
             Double.isNaN(r.observed()) ? "-" : String.format(Locale.ROOT, "%.6g", r.observed())));
     }

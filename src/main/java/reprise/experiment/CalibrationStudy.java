@@ -18,6 +18,7 @@ import reprise.sim.SimulationSpec;
 import reprise.sim.Simulator;
 import reprise.stats.Calibration;
 import reprise.stats.PooledRoundsIllustration;
+import reprise.stats.TestResult;
 
 /**
  * Repeats one simulation K times with independent seeds, tests every repetition against the exact
@@ -28,9 +29,9 @@ import reprise.stats.PooledRoundsIllustration;
  * <p>Tests per repetition: every test {@link CaseAnalysis#tests} applies (frequencies (Wald),
  * transitions (Pearson) and (LR) when the true history is a Markov chain, one snapshot test per
  * requested round), the z tests of the four state frequencies and both payoffs ({@link #Z_QUANTITIES}),
- * and the pooled-rounds chi-square of {@link PooledRoundsIllustration}, named {@link #POOLED_NAME} and
- * flagged {@code illustration}: it treats autocorrelated rounds as independent and is expected to be
- * miscalibrated.
+ * and the pooled-rounds chi-square of {@link PooledRoundsIllustration}, identified by
+ * {@link TestId.Standard#POOLED_ROUNDS_ILLUSTRATION} and flagged {@code illustration}: it treats
+ * autocorrelated rounds as independent and is expected to be miscalibrated.
  *
  * <p>Seeds: repetition k (0-based) runs the simulation with master seed
  * {@code mix64(seed + (k + 1) * 0x9E3779B97F4A7C15)}, the (k + 1)-th output of SplitMix64 started at
@@ -48,11 +49,9 @@ import reprise.stats.PooledRoundsIllustration;
  */
 public final class CalibrationStudy {
 
-    /** The name of the pooled-rounds illustration in the results. */
-    public static final String POOLED_NAME = "pooled rounds chi-square (ILLUSTRATION, invalid)";
-
     /** The quantities with a z test in every repetition: the four state frequencies and both payoffs. */
-    public static final List<String> Z_QUANTITIES = List.of("CC", "CD", "DC", "DD", "payoff_x", "payoff_y");
+    public static final List<BaseQuantity> Z_QUANTITIES = List.of(BaseQuantity.CC, BaseQuantity.CD, BaseQuantity.DC,
+        BaseQuantity.DD, BaseQuantity.PAYOFF_X, BaseQuantity.PAYOFF_Y);
 
     /** A state expected fewer times than this over one repetition's games gets a warning. */
     public static final double SPARSE_STATE_COUNT = 20;
@@ -167,8 +166,7 @@ public final class CalibrationStudy {
     /**
      * One test's calibration over the repetitions.
      *
-     * @param name the test's name, as in {@link CaseAnalysis#tests} ("z CC", ...) or {@link #POOLED_NAME}
-     * @param illustration true for the pooled-rounds illustration, which is not a valid test
+     * @param test the test, as keyed by {@link CaseAnalysis#tests}, or the pooled-rounds illustration
      * @param repetitionIndexes the 0-based repetitions in which the test applied (all K, except for a
      *     snapshot round that no game of a repetition reached), increasing
      * @param pValues the p-value of each of those repetitions, same order
@@ -176,25 +174,35 @@ public final class CalibrationStudy {
      *     the Kolmogorov-Smirnov uniformity p-value of {@code pValues}
      * @param note the test's note in the first repetition (method, dropped components), may be empty
      */
-    public record TestCalibration(String name, boolean illustration, int[] repetitionIndexes, double[] pValues,
+    public record TestCalibration(TestId test, int[] repetitionIndexes, double[] pValues,
         Calibration.Summary summary, String note) {
         /**
          * Copies the arrays.
          *
-         * @param name name
-         * @param illustration flag
+         * @param test test
          * @param repetitionIndexes repetitions
          * @param pValues p-values
          * @param summary summary
          * @param note note
          */
         public TestCalibration {
+            java.util.Objects.requireNonNull(test, "test");
             repetitionIndexes = repetitionIndexes.clone();
             pValues = pValues.clone();
             if (repetitionIndexes.length != pValues.length) {
                 throw new IllegalArgumentException("one repetition index per p-value needed: "
                     + repetitionIndexes.length + " for " + pValues.length);
             }
+        }
+
+        /** @return the test's name in files, e.g. "z CC" */
+        public String name() {
+            return test.label();
+        }
+
+        /** @return true for the pooled-rounds illustration, which is not a valid test */
+        public boolean illustration() {
+            return test.illustration();
         }
 
         /** @return the repetitions (a copy) */
@@ -257,31 +265,28 @@ public final class CalibrationStudy {
         } catch (NoPredictionException e) {
             throw new NoPredictionException("nothing to calibrate against: " + e.getMessage());
         }
-        Map<String, double[]> weights = new LinkedHashMap<>();
-        for (String q : Z_QUANTITIES) {
-            weights.put(q, Quantities.weights(q, predictedMatch.game()));
-        }
         SimulationSpec one = simulation.withThreads(1);
         new Simulator(one);
-        Repetition[] perRepetition = runAll(one, exact, weights, listener);
-        Map<String, List<Double>> pValues = new LinkedHashMap<>();
-        Map<String, List<Integer>> indexes = new LinkedHashMap<>();
-        Map<String, String> notes = new LinkedHashMap<>();
+        Repetition[] perRepetition = runAll(one, exact, listener);
+        Map<TestId, List<Double>> pValues = new LinkedHashMap<>();
+        Map<TestId, List<Integer>> indexes = new LinkedHashMap<>();
+        Map<TestId, String> notes = new LinkedHashMap<>();
         long rounds = 0;
         for (int k = 0; k < perRepetition.length; k++) {
             rounds += perRepetition[k].rounds();
-            for (CaseAnalysis.Named t : perRepetition[k].tests()) {
-                pValues.computeIfAbsent(t.name(), n -> new ArrayList<>()).add(t.result().pValue());
-                indexes.computeIfAbsent(t.name(), n -> new ArrayList<>()).add(k);
-                notes.putIfAbsent(t.name(), t.result().note());
-            }
+            int rep = k;
+            perRepetition[k].tests().forEach((id, t) -> {
+                pValues.computeIfAbsent(id, n -> new ArrayList<>()).add(t.pValue());
+                indexes.computeIfAbsent(id, n -> new ArrayList<>()).add(rep);
+                notes.putIfAbsent(id, t.note());
+            });
         }
         List<TestCalibration> out = new ArrayList<>();
-        for (Map.Entry<String, List<Double>> e : pValues.entrySet()) {
+        for (Map.Entry<TestId, List<Double>> e : pValues.entrySet()) {
             double[] p = e.getValue().stream().mapToDouble(Double::doubleValue).toArray();
             int[] ks = indexes.get(e.getKey()).stream().mapToInt(Integer::intValue).toArray();
-            out.add(new TestCalibration(e.getKey(), e.getKey().equals(POOLED_NAME), ks, p,
-                Calibration.summarize(p, alpha, INTERVAL_CONFIDENCE), notes.get(e.getKey())));
+            out.add(new TestCalibration(e.getKey(), ks, p, Calibration.summarize(p, alpha, INTERVAL_CONFIDENCE),
+                notes.get(e.getKey())));
         }
         return new Result(repetitions, alpha, trueModel(), out, exact.transitionsNote(), warnings(exact), rounds);
     }
@@ -289,29 +294,27 @@ public final class CalibrationStudy {
     private List<String> warnings(CaseAnalysis.Exact exact) {
         List<String> w = new ArrayList<>();
         double[] mean = exact.moments().mean();
-        String[] names = {"CC", "CD", "DC", "DD"};
         for (int s = 0; s < 4; s++) {
             double expected = mean[s] * simulation.replicates();
             if (expected > 0 && expected < SPARSE_STATE_COUNT) {
                 w.add(String.format(java.util.Locale.ROOT, "state %s: expected %.3g tallied rounds per repetition "
                     + "(below %d); its z test and the frequency test rest on a poor normal approximation, use more "
-                    + "games", names[s], expected, (int) SPARSE_STATE_COUNT));
+                    + "games", BaseQuantity.STATES.get(s).label(), expected, (int) SPARSE_STATE_COUNT));
             }
         }
         return w;
     }
 
-    private record Repetition(List<CaseAnalysis.Named> tests, long rounds) {
+    private record Repetition(Map<TestId, TestResult> tests, long rounds) {
     }
 
-    private Repetition[] runAll(SimulationSpec one, CaseAnalysis.Exact exact,
-        Map<String, double[]> weights, ProgressListener listener) {
+    private Repetition[] runAll(SimulationSpec one, CaseAnalysis.Exact exact, ProgressListener listener) {
         Repetition[] results = new Repetition[repetitions];
         Progress progress = new Progress(listener, repetitions, one);
         int workers = Math.min(simulation.threads(), repetitions);
         if (workers == 1) {
             for (int k = 0; k < repetitions; k++) {
-                results[k] = repetition(one, exact, weights, k, progress);
+                results[k] = repetition(one, exact, k, progress);
             }
             return results;
         }
@@ -324,7 +327,7 @@ public final class CalibrationStudy {
             List<Future<Repetition>> futures = new ArrayList<>();
             for (int k = 0; k < repetitions; k++) {
                 int rep = k;
-                futures.add(pool.submit(() -> repetition(one, exact, weights, rep, progress)));
+                futures.add(pool.submit(() -> repetition(one, exact, rep, progress)));
             }
             for (int k = 0; k < repetitions; k++) {
                 results[k] = futures.get(k).get();
@@ -347,12 +350,12 @@ public final class CalibrationStudy {
         }
     }
 
-    private Repetition repetition(SimulationSpec one, CaseAnalysis.Exact exact,
-        Map<String, double[]> weights, int k, Progress progress) {
+    private Repetition repetition(SimulationSpec one, CaseAnalysis.Exact exact, int k, Progress progress) {
         SimulationResult r = new Simulator(one.withSeed(repetitionSeed(simulation.seed(), k))).run();
-        List<CaseAnalysis.Named> tests = new ArrayList<>(CaseAnalysis.tests(exact, r, weights));
-        tests.add(new CaseAnalysis.Named(POOLED_NAME, PooledRoundsIllustration.misleadingTest(r.stateCounts(),
-            exact.frequencies())));
+        Map<TestId, TestResult> tests = new LinkedHashMap<>(CaseAnalysis.tests(exact, r, predictedMatch.game(),
+            Z_QUANTITIES));
+        tests.put(TestId.Standard.POOLED_ROUNDS_ILLUSTRATION, PooledRoundsIllustration.misleadingTest(
+            r.stateCounts(), exact.frequencies()));
         progress.done(r.lengthSum());
         return new Repetition(tests, r.roundsTotal());
     }

@@ -2,7 +2,10 @@ package reprise.experiment;
 
 import java.math.BigInteger;
 import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import org.apache.commons.rng.simple.RandomSource;
 import org.apache.commons.statistics.distribution.NormalDistribution;
 import reprise.chain.CountMoments;
@@ -12,6 +15,7 @@ import reprise.chain.NoPredictionException;
 import reprise.chain.Prediction;
 import reprise.game.Horizon;
 import reprise.game.Match;
+import reprise.game.StageGame;
 import reprise.sim.SimulationResult;
 import reprise.stats.Estimate;
 import reprise.stats.GameSummary;
@@ -70,7 +74,7 @@ public final class CaseAnalysis {
          * @return w . E[N] / E[L]
          */
         public double value(double[] w) {
-            return Quantities.dot(w, frequencies);
+            return dot(w, frequencies);
         }
 
         /**
@@ -221,18 +225,24 @@ public final class CaseAnalysis {
         return merged;
     }
 
-    private static TestResult withNote(TestResult r, String extra) {
-        return extra.isEmpty() ? r : new TestResult(r.statistic(), r.degreesOfFreedom(), r.pValue(),
-            r.note() + extra);
+    /**
+     * The note part saying that sparse transition cells were pooled, as written after a transition test's
+     * note and quoted in the report's warnings.
+     *
+     * @param merged the number of cells merged into another, at least 1
+     * @return e.g. "3 sparse cells (expected count below 5) pooled within their rows"
+     */
+    public static String pooledCellsPhrase(int merged) {
+        return merged + " sparse cells (expected count below " + (int) MINIMUM_EXPECTED_TRANSITIONS
+            + ") pooled within their rows";
     }
 
-    /**
-     * A named test result.
-     *
-     * @param name the test's name, e.g. "frequencies (Wald)"
-     * @param result the result
-     */
-    public record Named(String name, TestResult result) {
+    static double dot(double[] a, double[] b) {
+        double s = 0;
+        for (int i = 0; i < a.length; i++) {
+            s += a[i] * b[i];
+        }
+        return s;
     }
 
     /**
@@ -258,37 +268,70 @@ public final class CaseAnalysis {
     }
 
     /**
+     * Every test of a simulation against the exact side that applies, without z tests.
+     *
+     * @param exact the exact side
+     * @param r the simulation
+     * @return the results by test, in the order of {@link #tests(Exact, SimulationResult, StageGame, List)}
+     */
+    public static Map<TestId, TestResult> tests(Exact exact, SimulationResult r) {
+        return tests(exact, r, null, List.of());
+    }
+
+    /**
      * Every test of a simulation against the exact side that applies.
      *
      * @param exact the exact side
      * @param r the simulation
-     * @param weightsByName quantities to test individually, by name (may be empty)
-     * @return the named results: "frequencies (Wald)", "transitions (Pearson)", "transitions (LR)",
-     *     "snapshot t=...", "z NAME" for each quantity
+     * @param game the stage game (for the quantities' weights); may be null when {@code zQuantities} is empty
+     * @param zQuantities quantities to test individually (may be empty)
+     * @return the results by test, in this order: frequencies (Wald); transitions (Pearson) and (LR) when the
+     *     chain has an observable transition matrix; one snapshot test per round some game reached; one z
+     *     test per quantity, in the given order
      */
-    public static List<Named> tests(Exact exact, SimulationResult r, java.util.Map<String, double[]> weightsByName) {
-        List<Named> out = new ArrayList<>();
+    public static Map<TestId, TestResult> tests(Exact exact, SimulationResult r, StageGame game,
+        List<? extends Quantity> zQuantities) {
+        Map<TestId, TestResult> out = new LinkedHashMap<>();
         GameSummary summary = summary(r);
         double[] mu = exact.moments().mean();
         double[][] sigma = exact.moments().covariance();
-        boolean fixed = summary.fixedLength();
-        out.add(new Named("frequencies (Wald)", fixed ? WaldTest.withDefaults().testMeanCounts(summary, mu, sigma)
-            : WaldTest.withDefaults().testRatio(summary, mu, sigma)));
-        if (exact.transitions() != null) {
-            long[][] counts = exact.chain().size() == 4 ? r.transitionCounts() : r.historyTransitionCounts();
-            if (counts != null && counts.length == exact.transitions().length) {
-                long[][] pooledCounts = new long[counts.length][];
-                double[][] pooledHypothesis = new double[counts.length][];
-                int merged = poolSparseCells(counts, exact.transitions(), MINIMUM_EXPECTED_TRANSITIONS,
-                    pooledCounts, pooledHypothesis);
-                String note = merged == 0 ? "" : "; " + merged + " sparse cells (expected count below "
-                    + (int) MINIMUM_EXPECTED_TRANSITIONS + ") pooled within their rows";
-                out.add(new Named("transitions (Pearson)", withNote(TransitionTest.withDefaults()
-                    .test(pooledCounts, pooledHypothesis), note)));
-                out.add(new Named("transitions (LR)", withNote(TransitionTest.withDefaults()
-                    .with(TransitionTest.Form.LIKELIHOOD_RATIO).test(pooledCounts, pooledHypothesis), note)));
-            }
+        out.put(TestId.Standard.FREQUENCIES_WALD, summary.fixedLength()
+            ? WaldTest.withDefaults().testMeanCounts(summary, mu, sigma)
+            : WaldTest.withDefaults().testRatio(summary, mu, sigma));
+        transitionTests(exact, r, out);
+        snapshotTests(exact, r, out);
+        for (Quantity q : zQuantities) {
+            double[] w = q.weights(game);
+            out.put(new TestId.ZScore(q), zTest(exact, ReplicateInference.mean(summary, w), w));
         }
+        return Collections.unmodifiableMap(out);
+    }
+
+    private static void transitionTests(Exact exact, SimulationResult r, Map<TestId, TestResult> out) {
+        if (exact.transitions() == null) {
+            return;
+        }
+        long[][] counts = exact.chain().size() == 4 ? r.transitionCounts() : r.historyTransitionCounts();
+        if (counts == null || counts.length != exact.transitions().length) {
+            return;
+        }
+        long[][] pooledCounts = new long[counts.length][];
+        double[][] pooledHypothesis = new double[counts.length][];
+        int merged = poolSparseCells(counts, exact.transitions(), MINIMUM_EXPECTED_TRANSITIONS, pooledCounts,
+            pooledHypothesis);
+        TestResult pearson = TransitionTest.withDefaults().test(pooledCounts, pooledHypothesis);
+        TestResult lr = TransitionTest.withDefaults().with(TransitionTest.Form.LIKELIHOOD_RATIO)
+            .test(pooledCounts, pooledHypothesis);
+        if (merged > 0) {
+            String note = "; " + pooledCellsPhrase(merged);
+            pearson = pearson.withSmallSample(note, TestResult.SmallSample.pooled(merged));
+            lr = lr.withSmallSample(note, TestResult.SmallSample.pooled(merged));
+        }
+        out.put(TestId.Standard.TRANSITIONS_PEARSON, pearson);
+        out.put(TestId.Standard.TRANSITIONS_LR, lr);
+    }
+
+    private static void snapshotTests(Exact exact, SimulationResult r, Map<TestId, TestResult> out) {
         long[] rounds = r.snapshotRounds();
         long[][] snaps = r.snapshotCounts();
         for (int i = 0; i < rounds.length; i++) {
@@ -296,14 +339,9 @@ public final class CaseAnalysis {
                 SnapshotTest test = SnapshotTest.withDefaults().withMonteCarlo(
                     RandomSource.XO_RO_SHI_RO_128_PP.create(Runner.caseSeed(r.seed(), (int) rounds[i])),
                     SNAPSHOT_MONTE_CARLO);
-                out.add(new Named("snapshot t=" + rounds[i], test.test(snaps[i],
-                    exact.chain().roundStateDistributionAt(rounds[i]))));
+                out.put(new TestId.AtRound(rounds[i]), test.test(snaps[i],
+                    exact.chain().roundStateDistributionAt(rounds[i])));
             }
         }
-        for (java.util.Map.Entry<String, double[]> q : weightsByName.entrySet()) {
-            Estimate est = ReplicateInference.mean(summary, q.getValue());
-            out.add(new Named("z " + q.getKey(), zTest(exact, est, q.getValue())));
-        }
-        return out;
     }
 }

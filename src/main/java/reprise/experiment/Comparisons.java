@@ -8,7 +8,6 @@ import reprise.stats.Equivalence;
 import reprise.stats.Estimate;
 import reprise.stats.GameSummary;
 import reprise.stats.HotellingTest;
-import reprise.stats.Interval;
 import reprise.stats.ReplicateInference;
 import reprise.stats.TestResult;
 
@@ -32,15 +31,6 @@ import reprise.stats.TestResult;
  */
 public final class Comparisons {
 
-    /** Comparison names. */
-    public static final String EXACT = "exact";
-    /** The stationary comparison. */
-    public static final String STATIONARY = "stationary";
-    /** A claim against the simulation. */
-    public static final String CLAIM_SIMULATION = "claim-vs-simulation";
-    /** A claim against the exact engine. */
-    public static final String CLAIM_EXACT = "claim-vs-exact";
-
     private Comparisons() {
     }
 
@@ -55,134 +45,163 @@ public final class Comparisons {
     record Pending(ResultRow row, double equivalenceP, boolean margin, boolean counts) {
     }
 
-    static List<Pending> rows(Experiment e, CaseResult r, Map<String, Claims.Claim> claims) {
+    /** What every comparison of one case needs. */
+    private record Context(Experiment e, CaseResult r, GameSummary summary) {
+        Case c() {
+            return r.c();
+        }
+
+        CaseAnalysis.Exact exact() {
+            return r.exact();
+        }
+
+        double[] weights(Quantity q) {
+            return q.weights(r.c().match().game());
+        }
+
+        /** The quantities the experiment reports: today the base quantities of its groups; derived ones join here. */
+        List<Quantity> reported() {
+            return List.<Quantity>of(BaseQuantity.values()).stream()
+                .filter(q -> e.quantities().contains(q.group())).toList();
+        }
+    }
+
+    static List<Pending> rows(Experiment e, CaseResult r, Map<BaseQuantity, Claims.Claim> claims) {
         List<Pending> out = new ArrayList<>();
-        Case c = r.c();
-        GameSummary summary = CaseAnalysis.summary(r.simulation());
-        double alpha = e.alpha();
-        double h = e.tolerance();
-        CaseAnalysis.Exact exact = r.exact();
-        boolean enoughGames = summary.games() >= 2;
-        if (exact != null && enoughGames) {
-            List<CaseAnalysis.Named> named = CaseAnalysis.tests(exact, r.simulation(), Map.of());
+        Context x = new Context(e, r, CaseAnalysis.summary(r.simulation()));
+        boolean enoughGames = x.summary().games() >= 2;
+        if (r.exact() != null && enoughGames) {
+            Map<TestId, TestResult> tests = CaseAnalysis.tests(r.exact(), r.simulation());
             if (e.tests().contains(Experiment.Comparison.FREQUENCIES)) {
-                for (CaseAnalysis.Named n : named) {
-                    String quantity;
-                    if (n.name().startsWith("frequencies")) {
-                        quantity = "states";
-                    } else {
-                        continue;
-                    }
-                    out.add(test(c, quantity, EXACT, n.result(), "Wald test, exact covariance"));
-                }
-                for (String q : Quantities.NAMES) {
-                    if (!Quantities.reported(q, e.quantities())) {
-                        continue;
-                    }
-                    double[] w = Quantities.weights(q, c.match().game());
-                    Estimate est = ReplicateInference.mean(summary, w);
-                    TestResult z = CaseAnalysis.zTest(exact, est, w);
-                    Equivalence.Result eq = Equivalence.assess(est, exact.value(w), h, alpha);
-                    Interval ci = est.interval(1 - alpha);
-                    out.add(new Pending(new ResultRow(c.index(), c.id(), q, EXACT, exact.value(w), est.value(),
-                        ci.lower(), ci.upper(), z.statistic(), Double.NaN, z.pValue(), Double.NaN, Verdict.INCONCLUSIVE,
-                        "z-test with exact standard error " + fmt(exact.standardError(w, est.replicates()))
-                            + "; TOST within +-" + fmt(h) + " p = " + fmt(eq.equivalencePValue())),
-                        eq.equivalencePValue(), true, true));
-                }
+                out.add(test(x.c(), Subject.Joint.STATES, ComparisonKind.EXACT,
+                    tests.get(TestId.Standard.FREQUENCIES_WALD), "Wald test, exact covariance"));
+                x.reported().forEach(q -> out.add(exactQuantity(x, q)));
             }
             if (e.tests().contains(Experiment.Comparison.TRANSITIONS)) {
-                for (CaseAnalysis.Named n : named) {
-                    if (n.name().equals("transitions (Pearson)")) {
-                        out.add(test(c, "transitions", EXACT, n.result(), "Anderson & Goodman (1957) Pearson form"
-                            + (n.result().note().isEmpty() ? "" : "; " + n.result().note())));
-                    }
-                }
+                transitions(x, tests, out);
             }
             if (e.tests().contains(Experiment.Comparison.SNAPSHOTS)) {
-                for (CaseAnalysis.Named n : named) {
-                    if (n.name().startsWith("snapshot t=")) {
-                        String t = n.name().substring("snapshot t=".length());
-                        out.add(test(c, "snapshot_" + t, EXACT, n.result(), "state at round " + t + " across games"
-                            + (n.result().note().isEmpty() ? "" : "; " + n.result().note())));
-                    }
-                }
+                snapshots(x, tests, out);
             }
-            double[] pi = exact.prediction().stationary();
-            if (e.tests().contains(Experiment.Comparison.STATIONARY) && pi != null) {
-                for (String q : Quantities.NAMES) {
-                    if (!Quantities.reported(q, e.quantities())) {
-                        continue;
-                    }
-                    double[] w = Quantities.weights(q, c.match().game());
-                    Estimate est = ReplicateInference.mean(summary, w);
-                    double target = Quantities.dot(w, pi);
-                    Equivalence.Result eq = Equivalence.assess(est, target, h, alpha);
-                    Equivalence.BiasReport bias = Equivalence.biasReport(exact.value(w), target, est);
-                    Interval ci = est.interval(1 - alpha);
-                    Verdict v = switch (eq.verdict()) {
-                        case AGREES -> Verdict.AGREES;
-                        case DISAGREES -> Verdict.DISAGREES;
-                        default -> Verdict.INCONCLUSIVE;
-                    };
-                    String more = eq.additionalGamesNeeded().isPresent()
-                        ? "; about " + eq.additionalGamesNeeded().getAsLong() + " more games would settle it" : "";
-                    String why = "exact finite-horizon bias f_n - pi = " + fmt(bias.bias()) + " ("
-                        + fmt(bias.biasInStandardErrors()) + " standard errors of the simulated mean)";
-                    if (v == Verdict.DISAGREES && Math.abs(bias.bias()) > h) {
-                        why += "; the games are too short for the stationary value (exact value for "
-                            + c.horizon().describe() + ": " + fmt(exact.value(w)) + "); longer games, not more games, "
-                            + "would close the gap";
-                    }
-                    out.add(new Pending(new ResultRow(c.index(), c.id(), q, STATIONARY, target, est.value(), ci.lower(),
-                        ci.upper(), Double.NaN, Double.NaN, eq.differencePValue(), Double.NaN, v, why + more),
-                        eq.equivalencePValue(), true, false));
-                }
+            if (e.tests().contains(Experiment.Comparison.STATIONARY) && r.exact().prediction().stationary() != null) {
+                x.reported().forEach(q -> out.add(stationary(x, q)));
             }
         }
         if (claims != null && enoughGames) {
-            for (Map.Entry<String, Claims.Claim> cl : claims.entrySet()) {
-                String q = cl.getKey();
-                double claimed = cl.getValue().value();
-                double[] w = Quantities.weights(q, c.match().game());
-                Estimate est = ReplicateInference.mean(summary, w);
-                Equivalence.Result eq = Equivalence.assess(est, claimed, h, alpha);
-                Interval ci = est.interval(1 - alpha);
-                out.add(new Pending(new ResultRow(c.index(), c.id(), q, CLAIM_SIMULATION, claimed, est.value(),
-                    ci.lower(), ci.upper(), (est.value() - claimed) / est.standardError(), est.degreesOfFreedom(),
-                    eq.differencePValue(), Double.NaN, Verdict.INCONCLUSIVE, "claim from line " + cl.getValue().line()
-                        + "; t-test with replicate standard error; TOST within +-" + fmt(h) + " p = "
-                        + fmt(eq.equivalencePValue())), eq.equivalencePValue(), true, true));
-                if (exact != null) {
-                    double x = exact.value(w);
-                    Verdict v = Math.abs(x - claimed) <= h ? Verdict.AGREES : Verdict.DISAGREES;
-                    out.add(new Pending(new ResultRow(c.index(), c.id(), q, CLAIM_EXACT, claimed, x, Double.NaN,
-                        Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, v, "claim from line "
-                            + cl.getValue().line() + "; exact expectation for " + c.horizon().describe()
-                            + " differs by " + fmt(x - claimed)), Double.NaN, false, true));
-                }
-            }
-            if (exact == null && claims.keySet().containsAll(List.of("CC", "CD", "DC", "DD"))) {
-                double[] f = new double[4];
-                for (int s = 0; s < 4; s++) {
-                    f[s] = claims.get(Quantities.NAMES.get(s)).value();
-                }
-                TestResult t = HotellingTest.withDefaults().testRatio(summary, f);
-                out.add(test(c, "states", CLAIM_SIMULATION, t, "Hotelling T^2 with the replicate covariance (no exact "
-                    + "covariance for this case)"));
+            claims.forEach((q, claim) -> claim(x, q, claim, out));
+            if (r.exact() == null && claims.keySet().containsAll(BaseQuantity.STATES)) {
+                out.add(claimedStates(x, claims));
             }
         }
-        if (exact == null && (claims == null || claims.isEmpty())) {
-            out.add(new Pending(new ResultRow(c.index(), c.id(), "states", EXACT, Double.NaN, Double.NaN, Double.NaN,
-                Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Verdict.NO_PREDICTION, r.noPrediction()),
-                Double.NaN, false, false));
+        if (r.exact() == null && (claims == null || claims.isEmpty())) {
+            out.add(new Pending(ResultRow.builder(x.c(), Subject.Joint.STATES, ComparisonKind.EXACT)
+                .verdict(Verdict.NO_PREDICTION).note(r.noPrediction()).build(), Double.NaN, false, false));
         }
         return out;
     }
 
-    private static Pending test(Case c, String quantity, String comparison, TestResult t, String note) {
-        return new Pending(new ResultRow(c.index(), c.id(), quantity, comparison, Double.NaN, Double.NaN, Double.NaN,
-            Double.NaN, t.statistic(), t.degreesOfFreedom(), t.pValue(), Double.NaN, Verdict.CONSISTENT, note),
+    /** A quantity against its exact expectation: z-test with the exact standard error, TOST for agreement. */
+    private static Pending exactQuantity(Context x, Quantity q) {
+        double h = x.e().tolerance();
+        double alpha = x.e().alpha();
+        double[] w = x.weights(q);
+        Estimate est = ReplicateInference.mean(x.summary(), w);
+        TestResult z = CaseAnalysis.zTest(x.exact(), est, w);
+        Equivalence.Result eq = Equivalence.assess(est, x.exact().value(w), h, alpha);
+        ResultRow row = ResultRow.builder(x.c(), q, ComparisonKind.EXACT).predicted(x.exact().value(w))
+            .observed(est.value()).interval(est.interval(1 - alpha)).test(z.statistic(), Double.NaN, z.pValue())
+            .note("z-test with exact standard error " + fmt(x.exact().standardError(w, est.replicates()))
+                + "; TOST within +-" + fmt(h) + " p = " + fmt(eq.equivalencePValue()))
+            .build();
+        return new Pending(row, eq.equivalencePValue(), true, true);
+    }
+
+    private static void transitions(Context x, Map<TestId, TestResult> tests, List<Pending> out) {
+        TestResult t = tests.get(TestId.Standard.TRANSITIONS_PEARSON);
+        if (t != null) {
+            out.add(test(x.c(), Subject.Joint.TRANSITIONS, ComparisonKind.EXACT, t,
+                "Anderson & Goodman (1957) Pearson form" + (t.note().isEmpty() ? "" : "; " + t.note())));
+        }
+    }
+
+    private static void snapshots(Context x, Map<TestId, TestResult> tests, List<Pending> out) {
+        tests.forEach((id, t) -> {
+            if (id instanceof TestId.AtRound at) {
+                out.add(test(x.c(), at.subject(), ComparisonKind.EXACT, t, "state at round " + at.round()
+                    + " across games" + (t.note().isEmpty() ? "" : "; " + t.note())));
+            }
+        });
+    }
+
+    /**
+     * Whether the stationary value describes games of this length within the tolerance, with the exact
+     * finite-horizon bias beside the sampling error (descriptive).
+     */
+    private static Pending stationary(Context x, Quantity q) {
+        double h = x.e().tolerance();
+        double alpha = x.e().alpha();
+        double[] w = x.weights(q);
+        Estimate est = ReplicateInference.mean(x.summary(), w);
+        double target = CaseAnalysis.dot(w, x.exact().prediction().stationary());
+        Equivalence.Result eq = Equivalence.assess(est, target, h, alpha);
+        Equivalence.BiasReport bias = Equivalence.biasReport(x.exact().value(w), target, est);
+        Verdict v = switch (eq.verdict()) {
+            case AGREES -> Verdict.AGREES;
+            case DISAGREES -> Verdict.DISAGREES;
+            default -> Verdict.INCONCLUSIVE;
+        };
+        String more = eq.additionalGamesNeeded().isPresent()
+            ? "; about " + eq.additionalGamesNeeded().getAsLong() + " more games would settle it" : "";
+        String why = "exact finite-horizon bias f_n - pi = " + fmt(bias.bias()) + " ("
+            + fmt(bias.biasInStandardErrors()) + " standard errors of the simulated mean)";
+        if (v == Verdict.DISAGREES && Math.abs(bias.bias()) > h) {
+            why += "; the games are too short for the stationary value (exact value for "
+                + x.c().horizon().describe() + ": " + fmt(x.exact().value(w)) + "); longer games, not more games, "
+                + "would close the gap";
+        }
+        ResultRow row = ResultRow.builder(x.c(), q, ComparisonKind.STATIONARY).predicted(target).observed(est.value())
+            .interval(est.interval(1 - alpha)).test(Double.NaN, Double.NaN, eq.differencePValue()).verdict(v)
+            .note(why + more).build();
+        return new Pending(row, eq.equivalencePValue(), true, false);
+    }
+
+    /** A claimed value against the simulation (t-test and TOST) and against the exact expectation. */
+    private static void claim(Context x, BaseQuantity q, Claims.Claim claim, List<Pending> out) {
+        double h = x.e().tolerance();
+        double alpha = x.e().alpha();
+        double claimed = claim.value();
+        double[] w = x.weights(q);
+        Estimate est = ReplicateInference.mean(x.summary(), w);
+        Equivalence.Result eq = Equivalence.assess(est, claimed, h, alpha);
+        out.add(new Pending(ResultRow.builder(x.c(), q, ComparisonKind.CLAIM_VS_SIMULATION).predicted(claimed)
+            .observed(est.value()).interval(est.interval(1 - alpha))
+            .test((est.value() - claimed) / est.standardError(), est.degreesOfFreedom(), eq.differencePValue())
+            .note("claim from line " + claim.line() + "; t-test with replicate standard error; TOST within +-"
+                + fmt(h) + " p = " + fmt(eq.equivalencePValue()))
+            .build(), eq.equivalencePValue(), true, true));
+        if (x.exact() != null) {
+            double exact = x.exact().value(w);
+            Verdict v = Math.abs(exact - claimed) <= h ? Verdict.AGREES : Verdict.DISAGREES;
+            out.add(new Pending(ResultRow.builder(x.c(), q, ComparisonKind.CLAIM_VS_EXACT).predicted(claimed)
+                .observed(exact).verdict(v).note("claim from line " + claim.line() + "; exact expectation for "
+                    + x.c().horizon().describe() + " differs by " + fmt(exact - claimed))
+                .build(), Double.NaN, false, true));
+        }
+    }
+
+    /** All four claimed state frequencies against the simulation, when there is no exact covariance. */
+    private static Pending claimedStates(Context x, Map<BaseQuantity, Claims.Claim> claims) {
+        double[] f = new double[4];
+        for (int s = 0; s < 4; s++) {
+            f[s] = claims.get(BaseQuantity.STATES.get(s)).value();
+        }
+        TestResult t = HotellingTest.withDefaults().testRatio(x.summary(), f);
+        return test(x.c(), Subject.Joint.STATES, ComparisonKind.CLAIM_VS_SIMULATION, t, "Hotelling T^2 with the "
+            + "replicate covariance (no exact covariance for this case)");
+    }
+
+    private static Pending test(Case c, Subject subject, ComparisonKind kind, TestResult t, String note) {
+        return new Pending(ResultRow.builder(c, subject, kind).test(t).verdict(Verdict.CONSISTENT).note(note).build(),
             Double.NaN, false, true);
     }
 

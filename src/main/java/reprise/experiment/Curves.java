@@ -36,7 +36,7 @@ public final class Curves {
     /**
      * One point of one series.
      *
-     * @param figure the figure kind
+     * @param figure the figure
      * @param group the group label (one figure per group)
      * @param series the series label
      * @param x the x value (for heatmaps: the column's label value)
@@ -45,8 +45,25 @@ public final class Curves {
      * @param lower the lower end of an interval, or NaN
      * @param upper the upper end, or NaN
      */
-    public record Point(String figure, String group, String series, double x, double y, double value, double lower,
-        double upper) {
+    public record Point(FigureKind figure, String group, String series, double x, double y, double value,
+        double lower, double upper) {
+        /**
+         * Validates the labels.
+         *
+         * @param figure not null
+         * @param group not null
+         * @param series not null
+         * @param x x
+         * @param y y
+         * @param value value
+         * @param lower lower
+         * @param upper upper
+         */
+        public Point {
+            java.util.Objects.requireNonNull(figure, "figure");
+            java.util.Objects.requireNonNull(group, "group");
+            java.util.Objects.requireNonNull(series, "series");
+        }
     }
 
     /**
@@ -102,14 +119,14 @@ public final class Curves {
             for (int st = 0; st < 4; st++) {
                 Estimate est = ReplicateInference.stateFrequency(s, st);
                 Interval ci = est.interval(confidence);
-                out.add(new Point("convergence", group, State.of(st) + " simulated", n, est.value(), Double.NaN,
+                out.add(new Point(FigureKind.CONVERGENCE, group, State.of(st) + " simulated", n, est.value(), Double.NaN,
                     ci.lower(), ci.upper()));
             }
             if (r.exact() != null && r.exact().prediction().stationary() != null) {
                 double[] pi = r.exact().prediction().stationary();
                 double[] u = r.c().match().game().payoffX();
                 Estimate est = ReplicateInference.payoff(s, u);
-                out.add(new Point("error", group, "simulated", n, Math.abs(est.value() - Quantities.dot(u, pi)),
+                out.add(new Point(FigureKind.ERROR, group, "simulated", n, Math.abs(est.value() - CaseAnalysis.dot(u, pi)),
                     Double.NaN, Double.NaN, Double.NaN));
             }
         }
@@ -131,17 +148,17 @@ public final class Curves {
             }
             double[] f = Frequencies.rounds(last.exact().chain(), burnIn + 1, n);
             for (int st = 0; st < 4; st++) {
-                out.add(new Point("convergence", group, State.of(st) + " exact", n, f[st], Double.NaN, Double.NaN,
+                out.add(new Point(FigureKind.CONVERGENCE, group, State.of(st) + " exact", n, f[st], Double.NaN, Double.NaN,
                     Double.NaN));
             }
             if (pi != null) {
-                out.add(new Point("error", group, "exact bias", n, Math.abs(Quantities.dot(u, f) - Quantities.dot(u, pi)),
-                    Double.NaN, Double.NaN, Double.NaN));
+                out.add(new Point(FigureKind.ERROR, group, "exact bias", n,
+                    Math.abs(CaseAnalysis.dot(u, f) - CaseAnalysis.dot(u, pi)), Double.NaN, Double.NaN, Double.NaN));
             }
         }
         if (pi != null) {
             for (int st = 0; st < 4; st++) {
-                out.add(new Point("convergence", group, State.of(st) + " stationary", Double.NaN, pi[st], Double.NaN,
+                out.add(new Point(FigureKind.CONVERGENCE, group, State.of(st) + " stationary", Double.NaN, pi[st], Double.NaN,
                     Double.NaN, Double.NaN));
             }
         }
@@ -153,9 +170,9 @@ public final class Curves {
             GameSummary s = CaseAnalysis.summary(r.simulation());
             if (r.exact() != null) {
                 double[] f = r.exact().frequencies();
-                out.add(new Point("payoff", group, "X exact", delta, Quantities.dot(r.c().match().game().payoffX(), f),
+                out.add(new Point(FigureKind.PAYOFF, group, "X exact", delta, CaseAnalysis.dot(r.c().match().game().payoffX(), f),
                     Double.NaN, Double.NaN, Double.NaN));
-                out.add(new Point("payoff", group, "Y exact", delta, Quantities.dot(r.c().match().game().payoffY(), f),
+                out.add(new Point(FigureKind.PAYOFF, group, "Y exact", delta, CaseAnalysis.dot(r.c().match().game().payoffY(), f),
                     Double.NaN, Double.NaN, Double.NaN));
             }
             if (s.games() >= 2 && s.sumLength() > 0) {
@@ -163,8 +180,8 @@ public final class Curves {
                 Estimate y = ReplicateInference.payoff(s, r.c().match().game().payoffY());
                 Interval cx = x.interval(confidence);
                 Interval cy = y.interval(confidence);
-                out.add(new Point("payoff", group, "X simulated", delta, x.value(), Double.NaN, cx.lower(), cx.upper()));
-                out.add(new Point("payoff", group, "Y simulated", delta, y.value(), Double.NaN, cy.lower(), cy.upper()));
+                out.add(new Point(FigureKind.PAYOFF, group, "X simulated", delta, x.value(), Double.NaN, cx.lower(), cx.upper()));
+                out.add(new Point(FigureKind.PAYOFF, group, "Y simulated", delta, y.value(), Double.NaN, cy.lower(), cy.upper()));
             }
         }
     }
@@ -184,7 +201,7 @@ public final class Curves {
             }
             for (int st = 0; st < 4; st++) {
                 Interval ci = WilsonInterval.of(counts[i][st], reached[i], confidence, WilsonInterval.Correction.NONE);
-                out.add(new Point("distribution", g, State.of(st) + " simulated", rounds[i],
+                out.add(new Point(FigureKind.DISTRIBUTION, g, State.of(st) + " simulated", rounds[i],
                     (double) counts[i][st] / reached[i], Double.NaN, ci.lower(), ci.upper()));
             }
         }
@@ -193,7 +210,7 @@ public final class Curves {
             for (long t = 1; t <= last; t++) {
                 double[] v = r.exact().chain().roundStateDistributionAt(t);
                 for (int st = 0; st < 4; st++) {
-                    out.add(new Point("distribution", g, State.of(st) + " exact", t, v[st], Double.NaN, Double.NaN,
+                    out.add(new Point(FigureKind.DISTRIBUTION, g, State.of(st) + " exact", t, v[st], Double.NaN, Double.NaN,
                         Double.NaN));
                 }
             }
@@ -213,11 +230,11 @@ public final class Curves {
                 : ((Horizon.Continuation) r.c().horizon()).probability();
             String group = group(r.c(), false);
             for (ResultRow row : rows) {
-                if (row.caseIndex() == r.c().index() && row.quantity().equals("payoff_x")
-                    && row.comparison().equals(Comparisons.STATIONARY)) {
-                    out.add(new Point("deviation", group, "|observed - stationary| payoff of X", noise, h,
+                if (row.caseIndex() == r.c().index() && row.subject() == BaseQuantity.PAYOFF_X
+                    && row.comparisonKind() == ComparisonKind.STATIONARY) {
+                    out.add(new Point(FigureKind.DEVIATION, group, "|observed - stationary| payoff of X", noise, h,
                         Math.abs(row.observed() - row.predicted()), Double.NaN, Double.NaN));
-                    out.add(new Point("verdicts", group, "stationary payoff of X within tolerance", noise, h,
+                    out.add(new Point(FigureKind.VERDICTS, group, "stationary payoff of X within tolerance", noise, h,
                         row.verdict() == Verdict.AGREES ? 0 : row.verdict() == Verdict.DISAGREES ? 2 : 1, Double.NaN,
                         Double.NaN));
                 }

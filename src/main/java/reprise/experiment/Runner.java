@@ -40,6 +40,17 @@ public final class Runner {
      * @param disagrees whether any row that can make the experiment fail disagrees
      */
     public record Outcome(List<ResultRow> rows, List<String> warnings, boolean disagrees) {
+        /**
+         * Copies the lists.
+         *
+         * @param rows rows
+         * @param warnings warnings
+         * @param disagrees flag
+         */
+        public Outcome {
+            rows = List.copyOf(rows);
+            warnings = List.copyOf(warnings);
+        }
     }
 
     /**
@@ -199,13 +210,13 @@ public final class Runner {
      *
      * @param e the experiment
      * @param results the case results, in case order
-     * @param claims claims by case index (may be empty)
+     * @param claims claims by case index, each by the quantity's name in the claims file (may be empty)
      * @return the outcome
      */
     public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, Map<String, Claims.Claim>> claims) {
         List<Comparisons.Pending> pending = new ArrayList<>();
         for (CaseResult r : results) {
-            pending.addAll(Comparisons.rows(e, r, claims.get(r.c().index())));
+            pending.addAll(Comparisons.rows(e, r, byQuantity(claims.get(r.c().index()))));
         }
         List<Integer> diff = new ArrayList<>();
         List<Integer> equiv = new ArrayList<>();
@@ -218,38 +229,17 @@ public final class Runner {
                 equiv.add(i);
             }
         }
-        double[] adjDiff = adjust(e, pending, diff, true);
-        double[] adjEquiv = adjust(e, pending, equiv, false);
-        double[] byRowDiff = new double[pending.size()];
-        double[] byRowEquiv = new double[pending.size()];
-        java.util.Arrays.fill(byRowDiff, Double.NaN);
-        java.util.Arrays.fill(byRowEquiv, Double.NaN);
-        for (int k = 0; k < diff.size(); k++) {
-            byRowDiff[diff.get(k)] = adjDiff[k];
-        }
-        for (int k = 0; k < equiv.size(); k++) {
-            byRowEquiv[equiv.get(k)] = adjEquiv[k];
-        }
+        double[] byRowDiff = byRow(pending.size(), diff, adjust(e, pending, diff, true));
+        double[] byRowEquiv = byRow(pending.size(), equiv, adjust(e, pending, equiv, false));
         List<ResultRow> rows = new ArrayList<>();
         boolean disagrees = false;
-        double alpha = e.alpha();
         for (int i = 0; i < pending.size(); i++) {
             Comparisons.Pending p = pending.get(i);
-            ResultRow row = p.row();
-            Verdict v = row.verdict();
-            if (p.counts() && Double.isFinite(row.pValue())) {
-                boolean rejected = byRowDiff[i] < alpha;
-                if (p.margin()) {
-                    boolean outside = Math.abs(row.observed() - row.predicted()) > e.tolerance();
-                    v = rejected && outside ? Verdict.DISAGREES : byRowEquiv[i] < alpha ? Verdict.AGREES
-                        : Verdict.INCONCLUSIVE;
-                } else {
-                    v = rejected ? Verdict.DISAGREES : Verdict.CONSISTENT;
-                }
-            }
-            rows.add(row.adjusted(p.counts() ? byRowDiff[i] : Double.NaN, v));
+            Verdict v = verdict(e, p, byRowDiff[i], byRowEquiv[i]);
+            rows.add(p.row().adjusted(p.counts() ? byRowDiff[i] : Double.NaN, v));
             disagrees |= p.counts() && v == Verdict.DISAGREES;
         }
+        double alpha = e.alpha();
         List<String> warnings = new ArrayList<>();
         if (e.correction() == Experiment.Correction.NONE && diff.size() > MANY_TESTS) {
             warnings.add(diff.size() + " tests were made without a multiple-testing correction: at alpha = " + alpha
@@ -257,6 +247,46 @@ public final class Runner {
                 + "is right (use correction: holm)");
         }
         return new Outcome(rows, warnings, disagrees);
+    }
+
+    /** The claims of one case keyed by quantity, in the order of the claims file; null stays null. */
+    private static Map<BaseQuantity, Claims.Claim> byQuantity(Map<String, Claims.Claim> claims) {
+        if (claims == null) {
+            return null;
+        }
+        Map<BaseQuantity, Claims.Claim> out = new java.util.LinkedHashMap<>();
+        claims.forEach((name, claim) -> out.put(BaseQuantity.ofLabel(name), claim));
+        return out;
+    }
+
+    /** Adjusted p-values spread back to their rows; NaN for rows not in {@code idx}. */
+    private static double[] byRow(int size, List<Integer> idx, double[] adjusted) {
+        double[] out = new double[size];
+        java.util.Arrays.fill(out, Double.NaN);
+        for (int k = 0; k < idx.size(); k++) {
+            out[idx.get(k)] = adjusted[k];
+        }
+        return out;
+    }
+
+    /**
+     * The final verdict of a row from its adjusted p-values: a row with a margin disagrees when the
+     * difference test rejects and the estimate lies outside the tolerance, agrees when the equivalence
+     * test rejects, and is inconclusive otherwise; a row without a margin is consistent or disagrees. Rows
+     * that do not count, or have no p-value, keep their provisional verdict.
+     */
+    private static Verdict verdict(Experiment e, Comparisons.Pending p, double adjustedDiff, double adjustedEquiv) {
+        ResultRow row = p.row();
+        if (!p.counts() || !Double.isFinite(row.pValue())) {
+            return row.verdict();
+        }
+        boolean rejected = adjustedDiff < e.alpha();
+        if (!p.margin()) {
+            return rejected ? Verdict.DISAGREES : Verdict.CONSISTENT;
+        }
+        boolean outside = Math.abs(row.observed() - row.predicted()) > e.tolerance();
+        return rejected && outside ? Verdict.DISAGREES : adjustedEquiv < e.alpha() ? Verdict.AGREES
+            : Verdict.INCONCLUSIVE;
     }
 
     private static double[] adjust(Experiment e, List<Comparisons.Pending> pending, List<Integer> idx, boolean diff) {

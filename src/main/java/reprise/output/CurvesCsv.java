@@ -7,11 +7,13 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVPrinter;
 import org.apache.commons.csv.CSVRecord;
 import reprise.experiment.Curves;
+import reprise.experiment.FigureKind;
 
 /**
  * {@code curves.csv}: the tidy points every figure is drawn from (columns figure, group, series, x, y,
@@ -34,7 +36,7 @@ public final class CurvesCsv {
             try (CSVPrinter out = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setHeader(HEADER)
                 .setRecordSeparator('\n').build())) {
                 for (Curves.Point p : points) {
-                    out.printRecord(p.figure(), p.group(), p.series(), ResultsCsv.num(p.x()), ResultsCsv.num(p.y()),
+                    out.printRecord(p.figure().label(), p.group(), p.series(), ResultsCsv.num(p.x()), ResultsCsv.num(p.y()),
                         ResultsCsv.num(p.value()), ResultsCsv.num(p.lower()), ResultsCsv.num(p.upper()));
                 }
             }
@@ -55,7 +57,11 @@ public final class CurvesCsv {
                 throw new IllegalArgumentException(file + ": not a curves file (header " + p.getHeaderNames() + ")");
             }
             for (CSVRecord rec : p) {
-                out.add(new Curves.Point(rec.get(0), rec.get(1), rec.get(2), ResultsCsv.parse(rec.get(3)),
+                Optional<FigureKind> figure = FigureKind.ofLabel(rec.get(0));
+                if (figure.isEmpty()) {
+                    continue;
+                }
+                out.add(new Curves.Point(figure.get(), rec.get(1), rec.get(2), ResultsCsv.parse(rec.get(3)),
                     ResultsCsv.parse(rec.get(4)), ResultsCsv.parse(rec.get(5)), ResultsCsv.parse(rec.get(6)),
                     ResultsCsv.parse(rec.get(7))));
             }

@@ -5,8 +5,11 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.TreeSet;
 import reprise.experiment.Curves;
+import reprise.experiment.FigureKind;
+import reprise.experiment.TestId;
 import reprise.game.State;
 import reprise.output.figures.CalibrationData;
 import reprise.output.figures.ConvergenceData;
@@ -33,7 +36,7 @@ public final class Plotter {
      * @param group the group it shows
      * @param result the files and notes (no files when the figure had nothing to draw; a note says why)
      */
-    public record Drawn(String kind, String group, FigureResult result) {
+    public record Drawn(FigureKind kind, String group, FigureResult result) {
     }
 
     private Plotter() {
@@ -53,24 +56,24 @@ public final class Plotter {
      */
     public static List<Drawn> draw(List<Curves.Point> points, Path directory) {
         Figures figures = Figures.withDefaults();
-        Map<String, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
+        Map<FigureKind, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
         for (Curves.Point p : points) {
             byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
                 .computeIfAbsent(p.group(), k -> new ArrayList<>()).add(p);
         }
         List<Drawn> out = new ArrayList<>();
         byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> {
-            String base = FileNames.safe(figure + "-" + group);
+            String base = FileNames.safe(figure.label() + "-" + group);
             FigureResult r;
             try {
                 r = switch (figure) {
-                    case "convergence" -> convergence(figures, directory, base, pts);
-                    case "error" -> error(figures, directory, base, pts);
-                    case "payoff" -> payoff(figures, directory, base, pts);
-                    case "distribution" -> distribution(figures, directory, base, pts);
-                    case "deviation" -> deviation(figures, directory, base, pts);
-                    case "verdicts" -> verdicts(figures, directory, base, pts);
-                    default -> null;
+                    case CONVERGENCE -> convergence(figures, directory, base, pts);
+                    case ERROR -> error(figures, directory, base, pts);
+                    case PAYOFF -> payoff(figures, directory, base, pts);
+                    case DISTRIBUTION -> distribution(figures, directory, base, pts);
+                    case DEVIATION -> deviation(figures, directory, base, pts);
+                    case VERDICTS -> verdicts(figures, directory, base, pts);
+                    case CALIBRATION -> null;
                 };
             } catch (IllegalArgumentException ex) {
                 if (!String.valueOf(ex.getMessage()).contains(NOTHING_TO_DRAW)) {
@@ -105,10 +108,13 @@ public final class Plotter {
             }
             for (org.apache.commons.csv.CSVRecord rec : p) {
                 String name = rec.get(0);
-                if (!name.startsWith("z ")) {
-                    String label = name.contains("ILLUSTRATION") ? "pooled rounds chi-square (invalid)" : name;
-                    byTest.computeIfAbsent(label, k -> new ArrayList<>()).add(Double.parseDouble(rec.get(2)));
+                Optional<TestId> test = TestId.ofLabel(name);
+                if (test.isPresent() && test.get() instanceof TestId.ZScore) {
+                    continue;
                 }
+                String label = test.isPresent() && test.get().illustration() ? "pooled rounds chi-square (invalid)"
+                    : name;
+                byTest.computeIfAbsent(label, k -> new ArrayList<>()).add(Double.parseDouble(rec.get(2)));
             }
         } catch (java.io.IOException | NumberFormatException e) {
             throw new IllegalArgumentException(calibrationCsv + ": cannot be read: " + e.getMessage(), e);
@@ -118,7 +124,7 @@ public final class Plotter {
             .toArray())));
         FigureResult result = Figures.withDefaults().pValueCalibration(directory, "calibration-qq",
             new CalibrationData("", samples));
-        return new Drawn("calibration", "p-values against uniform quantiles", result);
+        return new Drawn(FigureKind.CALIBRATION, "p-values against uniform quantiles", result);
     }
 
     private static List<Curves.Point> series(List<Curves.Point> pts, String name) {

@@ -10,13 +10,18 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.stream.Collectors;
+import reprise.experiment.BaseQuantity;
+import reprise.experiment.CaseAnalysis;
 import reprise.experiment.CaseResult;
-import reprise.experiment.Comparisons;
+import reprise.experiment.ComparisonKind;
 import reprise.experiment.Experiment;
+import reprise.experiment.Quantity;
 import reprise.experiment.ResultRow;
 import reprise.experiment.Runner;
+import reprise.experiment.Subject;
 import reprise.experiment.Verdict;
 import reprise.game.Horizon;
+import reprise.stats.TestResult;
 
 /** {@code report.md}: what was run, the verdicts, the figures, and the assumptions behind the verdicts. */
 public final class Report {
@@ -53,33 +58,53 @@ public final class Report {
 
     static String render(Content c, Path folder) {
         Experiment e = c.experiment();
+        List<ResultRow> rows = c.outcome().rows();
         StringBuilder sb = new StringBuilder();
         sb.append("# reprise report: ").append(e.name()).append("\n\n");
         if (!e.description().isBlank()) {
             sb.append(e.description().trim()).append("\n\n");
         }
-        List<ResultRow> rows = c.outcome().rows();
-        long disagree = rows.stream().filter(r -> counts(r) && r.verdict() == Verdict.DISAGREES).count();
+        verdict(sb, rows);
+        tally(sb, rows);
+        perCase(sb, e, c.results(), rows);
+        stationary(sb, e, rows);
+        claims(sb, rows);
+        warnings(sb, c);
+        figures(sb, c.figures(), folder);
+        whatWasRun(sb, c);
+        sb.append(ASSUMPTIONS);
+        return sb.toString();
+    }
+
+    /** The headline: no disagreement, or the table of disagreeing rows. */
+    private static void verdict(StringBuilder sb, List<ResultRow> rows) {
+        List<ResultRow> disagreeing = rows.stream().filter(r -> counts(r) && r.verdict() == Verdict.DISAGREES)
+            .toList();
+        int disagree = disagreeing.size();
         sb.append("## Verdict\n\n");
         if (disagree == 0) {
             sb.append("**No disagreement.** Every comparison of the simulation with the exact engine")
                 .append(hasClaims(rows) ? " and with the claimed values" : "")
                 .append(" agrees within the tolerance, is consistent, or is inconclusive (see below). Exit code 0.\n\n");
-        } else {
-            sb.append("**").append(disagree).append(disagree == 1 ? " comparison disagrees" : " comparisons disagree")
-                .append("** (exit code 1):\n\n");
-            sb.append("| case | quantity | comparison | predicted | observed | interval | p (adjusted) | note |\n");
-            sb.append("|---|---|---|---|---|---|---|---|\n");
-            rows.stream().filter(r -> counts(r) && r.verdict() == Verdict.DISAGREES).forEach(r -> sb.append("| ")
-                .append(r.caseId()).append(" | ").append(r.quantity()).append(" | ").append(r.comparison()).append(" | ")
-                .append(num(r.predicted())).append(" | ").append(num(r.observed())).append(" | ")
-                .append(interval(r)).append(" | ").append(num(r.adjustedP())).append(" | ").append(cell(r.note()))
-                .append(" |\n"));
-            sb.append('\n');
+            return;
         }
-        Map<String, Map<Verdict, Integer>> tally = new LinkedHashMap<>();
+        sb.append("**").append(disagree).append(disagree == 1 ? " comparison disagrees" : " comparisons disagree")
+            .append("** (exit code 1):\n\n");
+        sb.append("| case | quantity | comparison | predicted | observed | interval | p (adjusted) | note |\n");
+        sb.append("|---|---|---|---|---|---|---|---|\n");
+        disagreeing.forEach(r -> sb.append("| ").append(r.caseId()).append(" | ").append(r.subject().label())
+            .append(" | ").append(r.comparisonKind().label()).append(" | ").append(num(r.predicted())).append(" | ")
+            .append(num(r.observed())).append(" | ").append(interval(r)).append(" | ").append(num(r.adjustedP()))
+            .append(" | ").append(cell(r.note())).append(" |\n"));
+        sb.append('\n');
+    }
+
+    /** Verdicts counted per comparison kind, kinds in order of first appearance. */
+    private static void tally(StringBuilder sb, List<ResultRow> rows) {
+        Map<ComparisonKind, Map<Verdict, Integer>> tally = new LinkedHashMap<>();
         for (ResultRow r : rows) {
-            tally.computeIfAbsent(r.comparison(), k -> new EnumMap<>(Verdict.class)).merge(r.verdict(), 1, Integer::sum);
+            tally.computeIfAbsent(r.comparisonKind(), k -> new EnumMap<>(Verdict.class)).merge(r.verdict(), 1,
+                Integer::sum);
         }
         sb.append("| comparison | ");
         for (Verdict v : Verdict.values()) {
@@ -91,14 +116,17 @@ public final class Report {
         }
         sb.append('\n');
         tally.forEach((comp, m) -> {
-            sb.append("| ").append(comp).append(" | ");
+            sb.append("| ").append(comp.label()).append(" | ");
             for (Verdict v : Verdict.values()) {
                 sb.append(m.getOrDefault(v, 0)).append(" | ");
             }
             sb.append('\n');
         });
         sb.append('\n');
+    }
 
+    /** One line per case: the joint tests, the snapshots and the quantities against the exact engine. */
+    private static void perCase(StringBuilder sb, Experiment e, List<CaseResult> results, List<ResultRow> rows) {
         sb.append("## Exact engine against simulation, per case\n\n");
         sb.append("The Wald test compares the four mean state frequencies with the exact expectation for games of ")
             .append("the length played, using the exact covariance of a game's state counts; the transition test ")
@@ -106,53 +134,64 @@ public final class Report {
             .append("p-values are adjusted (").append(correction(e)).append(") across the whole experiment.\n\n");
         sb.append("| case | states: Wald p (adj.) | transitions p (adj.) | snapshots | quantities agree / inconclusive / "
             + "disagree |\n|---|---|---|---|---|\n");
-        for (CaseResult r : c.results()) {
-            List<ResultRow> mine = rows.stream().filter(x -> x.caseIndex() == r.c().index()
-                && x.comparison().equals(Comparisons.EXACT)).toList();
+        for (CaseResult r : results) {
             if (r.exact() == null) {
                 sb.append("| ").append(r.c().id()).append(" | ").append(cell(r.noPrediction()))
                     .append(" | | | |\n");
                 continue;
             }
-            sb.append("| ").append(r.c().id()).append(" | ").append(testCell(mine, "states")).append(" | ")
-                .append(testCell(mine, "transitions")).append(" | ");
-            List<ResultRow> snaps = mine.stream().filter(x -> x.quantity().startsWith("snapshot_")).toList();
+            List<ResultRow> mine = rows.stream().filter(x -> x.caseIndex() == r.c().index()
+                && x.comparisonKind() == ComparisonKind.EXACT).toList();
+            sb.append("| ").append(r.c().id()).append(" | ").append(testCell(mine, Subject.Joint.STATES))
+                .append(" | ").append(testCell(mine, Subject.Joint.TRANSITIONS)).append(" | ");
+            List<ResultRow> snaps = mine.stream().filter(x -> x.subject() instanceof Subject.Snapshot).toList();
             long snapBad = snaps.stream().filter(x -> x.verdict() == Verdict.DISAGREES).count();
             sb.append(snaps.isEmpty() ? "" : (snaps.size() - snapBad) + " of " + snaps.size() + " consistent")
                 .append(" | ");
-            List<ResultRow> qs = mine.stream().filter(x -> !x.quantity().equals("states")
-                && !x.quantity().equals("transitions") && !x.quantity().startsWith("snapshot_")).toList();
+            List<ResultRow> qs = mine.stream().filter(x -> x.subject() instanceof Quantity).toList();
             sb.append(qs.stream().filter(x -> x.verdict() == Verdict.AGREES).count()).append(" / ")
                 .append(qs.stream().filter(x -> x.verdict() == Verdict.INCONCLUSIVE).count()).append(" / ")
                 .append(qs.stream().filter(x -> x.verdict() == Verdict.DISAGREES).count()).append(" |\n");
         }
         sb.append('\n');
+    }
 
-        List<ResultRow> stationary = rows.stream().filter(r -> r.comparison().equals(Comparisons.STATIONARY)
-            && r.quantity().equals("payoff_x")).toList();
-        if (!stationary.isEmpty()) {
-            sb.append("## Does the stationary payoff describe these games?\n\n");
-            sb.append("Within +-").append(num(e.tolerance())).append(": the simulated payoff of X per round against ")
-                .append("its stationary (infinitely repeated) value. The finite-horizon bias f_n - pi is known exactly ")
-                .append("and does not shrink with more games; sampling error does. These rows describe; they do not ")
-                .append("change the exit code (write a claim to assert a value).\n\n");
-            sb.append("| case | stationary | simulated | interval | verdict | why |\n|---|---|---|---|---|---|\n");
-            for (ResultRow r : stationary) {
-                sb.append("| ").append(r.caseId()).append(" | ").append(num(r.predicted())).append(" | ")
-                    .append(num(r.observed())).append(" | ").append(interval(r)).append(" | ").append(r.verdict().word())
-                    .append(" | ").append(cell(r.note())).append(" |\n");
-            }
-            sb.append('\n');
+    /** The stationary payoff of X against the simulation, per case (descriptive rows). */
+    private static void stationary(StringBuilder sb, Experiment e, List<ResultRow> rows) {
+        List<ResultRow> stationary = rows.stream().filter(r -> r.comparisonKind() == ComparisonKind.STATIONARY
+            && r.subject() == BaseQuantity.PAYOFF_X).toList();
+        if (stationary.isEmpty()) {
+            return;
         }
-        if (hasClaims(rows)) {
-            sb.append("## Claims\n\n| case | quantity | comparison | claimed | observed or exact | verdict | note |\n")
-                .append("|---|---|---|---|---|---|---|\n");
-            rows.stream().filter(r -> r.comparison().startsWith("claim")).forEach(r -> sb.append("| ")
-                .append(r.caseId()).append(" | ").append(r.quantity()).append(" | ").append(r.comparison())
-                .append(" | ").append(num(r.predicted())).append(" | ").append(num(r.observed())).append(" | ")
-                .append(r.verdict().word()).append(" | ").append(cell(r.note())).append(" |\n"));
-            sb.append('\n');
+        sb.append("## Does the stationary payoff describe these games?\n\n");
+        sb.append("Within +-").append(num(e.tolerance())).append(": the simulated payoff of X per round against ")
+            .append("its stationary (infinitely repeated) value. The finite-horizon bias f_n - pi is known exactly ")
+            .append("and does not shrink with more games; sampling error does. These rows describe; they do not ")
+            .append("change the exit code (write a claim to assert a value).\n\n");
+        sb.append("| case | stationary | simulated | interval | verdict | why |\n|---|---|---|---|---|---|\n");
+        for (ResultRow r : stationary) {
+            sb.append("| ").append(r.caseId()).append(" | ").append(num(r.predicted())).append(" | ")
+                .append(num(r.observed())).append(" | ").append(interval(r)).append(" | ").append(r.verdict().word())
+                .append(" | ").append(cell(r.note())).append(" |\n");
         }
+        sb.append('\n');
+    }
+
+    private static void claims(StringBuilder sb, List<ResultRow> rows) {
+        if (!hasClaims(rows)) {
+            return;
+        }
+        sb.append("## Claims\n\n| case | quantity | comparison | claimed | observed or exact | verdict | note |\n")
+            .append("|---|---|---|---|---|---|---|\n");
+        rows.stream().filter(r -> r.comparisonKind().isClaim()).forEach(r -> sb.append("| ").append(r.caseId())
+            .append(" | ").append(r.subject().label()).append(" | ").append(r.comparisonKind().label()).append(" | ")
+            .append(num(r.predicted())).append(" | ").append(num(r.observed())).append(" | ")
+            .append(r.verdict().word()).append(" | ").append(cell(r.note())).append(" |\n"));
+        sb.append('\n');
+    }
+
+    /** Experiment and case warnings, then the tests that small expected counts changed, per case. */
+    private static void warnings(StringBuilder sb, Content c) {
         List<String> warnings = new ArrayList<>(c.outcome().warnings());
         for (CaseResult r : c.results()) {
             for (String w : r.warnings()) {
@@ -160,12 +199,10 @@ public final class Report {
             }
         }
         Map<String, List<String>> sparse = new LinkedHashMap<>();
-        for (ResultRow r : rows) {
-            String switched = smallCountNote(r.note());
-            if (switched != null) {
-                String how = switched.startsWith("Monte Carlo") ? "Monte Carlo multinomial test"
-                    : switched.startsWith("exact") ? "exact multinomial test" : switched;
-                sparse.computeIfAbsent(r.caseId(), k -> new ArrayList<>()).add(r.quantity() + " (" + how + ")");
+        for (ResultRow r : c.outcome().rows()) {
+            String how = smallSampleRemedy(r.smallSample());
+            if (how != null) {
+                sparse.computeIfAbsent(r.caseId(), k -> new ArrayList<>()).add(r.subject().label() + " (" + how + ")");
             }
         }
         sparse.forEach((id, list) -> warnings.add(id + ": expected counts too small for the chi-square approximation, "
@@ -175,25 +212,33 @@ public final class Report {
             warnings.forEach(w -> sb.append("- ").append(w).append('\n'));
             sb.append('\n');
         }
-        if (!c.figures().isEmpty()) {
-            sb.append("## Figures\n\n");
-            for (Plotter.Drawn d : c.figures()) {
-                if (d.result().files().isEmpty()) {
-                    sb.append("*").append(caption(d)).append(":* ").append(String.join(" ", d.result().notes()))
-                        .append("\n\n");
-                    continue;
-                }
-                Path png = d.result().files().stream().filter(p -> p.toString().endsWith(".png")).findFirst()
-                    .orElse(d.result().files().get(0));
-                String rel = folder.relativize(png.toAbsolutePath()).toString().replace('\\', '/');
-                sb.append("![").append(caption(d)).append("](").append(rel).append(")\n\n");
-                sb.append("*").append(caption(d)).append(".*");
-                if (!d.result().notes().isEmpty()) {
-                    sb.append(" ").append(String.join(" ", d.result().notes()));
-                }
-                sb.append("\n\n");
-            }
+    }
+
+    private static void figures(StringBuilder sb, List<Plotter.Drawn> figures, Path folder) {
+        if (figures.isEmpty()) {
+            return;
         }
+        sb.append("## Figures\n\n");
+        for (Plotter.Drawn d : figures) {
+            if (d.result().files().isEmpty()) {
+                sb.append("*").append(caption(d)).append(":* ").append(String.join(" ", d.result().notes()))
+                    .append("\n\n");
+                continue;
+            }
+            Path png = d.result().files().stream().filter(p -> p.toString().endsWith(".png")).findFirst()
+                .orElse(d.result().files().get(0));
+            String rel = folder.relativize(png.toAbsolutePath()).toString().replace('\\', '/');
+            sb.append("![").append(caption(d)).append("](").append(rel).append(")\n\n");
+            sb.append("*").append(caption(d)).append(".*");
+            if (!d.result().notes().isEmpty()) {
+                sb.append(" ").append(String.join(" ", d.result().notes()));
+            }
+            sb.append("\n\n");
+        }
+    }
+
+    private static void whatWasRun(StringBuilder sb, Content c) {
+        Experiment e = c.experiment();
         sb.append("## What was run\n\n");
         sb.append("- experiment file: `").append(e.file()).append("` (SHA-256 ").append(e.sha256()).append(")\n");
         sb.append("- game: ").append(e.game().label()).append('\n');
@@ -220,8 +265,6 @@ public final class Report {
             .append(", started ").append(c.start()).append(", wall time ")
             .append(String.format(Locale.ROOT, "%.1f s", Duration.between(c.start(), c.end()).toMillis() / 1000.0))
             .append("\n\n");
-        sb.append(ASSUMPTIONS);
-        return sb.toString();
     }
 
     static final String ASSUMPTIONS = String.join("\n",
@@ -249,33 +292,29 @@ public final class Report {
         "");
 
     /**
-     * The part of a test's note saying that small expected counts changed the test (sparse transition
-     * cells pooled, or an exact or Monte Carlo multinomial test used instead of chi-square), or null.
+     * How a test handled expected counts too small for the chi-square approximation, in the words of the
+     * warnings, or null when it did not need to.
      */
-    static String smallCountNote(String note) {
-        if (note == null) {
-            return null;
-        }
-        for (String part : note.split("; ")) {
-            if (part.contains("pooled within their rows") || part.startsWith("exact multinomial test")
-                || part.startsWith("Monte Carlo multinomial test")) {
-                return part;
-            }
-        }
-        return null;
+    static String smallSampleRemedy(TestResult.SmallSample s) {
+        return switch (s.method()) {
+            case NONE -> null;
+            case POOLED -> CaseAnalysis.pooledCellsPhrase(s.cellsPooled());
+            case EXACT -> "exact multinomial test";
+            case MONTE_CARLO -> "Monte Carlo multinomial test";
+        };
     }
 
-    private static String testCell(List<ResultRow> rows, String quantity) {
-        return rows.stream().filter(r -> r.quantity().equals(quantity)).findFirst()
+    private static String testCell(List<ResultRow> rows, Subject subject) {
+        return rows.stream().filter(r -> r.subject().equals(subject)).findFirst()
             .map(r -> num(r.adjustedP()) + " " + r.verdict().word()).orElse("");
     }
 
     private static boolean counts(ResultRow r) {
-        return !r.comparison().equals(Comparisons.STATIONARY);
+        return r.comparisonKind().countsTowardsExit();
     }
 
     private static boolean hasClaims(List<ResultRow> rows) {
-        return rows.stream().anyMatch(r -> r.comparison().startsWith("claim"));
+        return rows.stream().anyMatch(r -> r.comparisonKind().isClaim());
     }
 
     private static String correction(Experiment e) {
@@ -288,16 +327,16 @@ public final class Report {
 
     private static String caption(Plotter.Drawn d) {
         String what = switch (d.kind()) {
-            case "convergence" -> "State frequencies against game length (log scale): simulated with intervals, "
+            case CONVERGENCE -> "State frequencies against game length (log scale): simulated with intervals, "
                 + "exact finite-horizon expectation (solid), stationary value (dashed)";
-            case "error" -> "Distance of the simulated payoff of X from its stationary value against game length, "
+            case ERROR -> "Distance of the simulated payoff of X from its stationary value against game length, "
                 + "with the exact bias and the sampling slope -1/2";
-            case "payoff" -> "Payoffs per round against the continuation probability: exact and simulated";
-            case "distribution" -> "State at round t: exact v_1 M^(t-1) and simulated snapshots";
-            case "deviation" -> "|observed - stationary| payoff of X over execution error and game length";
-            case "verdicts" -> "Does the stationary payoff of X hold within the tolerance, over execution error and "
+            case PAYOFF -> "Payoffs per round against the continuation probability: exact and simulated";
+            case DISTRIBUTION -> "State at round t: exact v_1 M^(t-1) and simulated snapshots";
+            case DEVIATION -> "|observed - stationary| payoff of X over execution error and game length";
+            case VERDICTS -> "Does the stationary payoff of X hold within the tolerance, over execution error and "
                 + "game length";
-            default -> d.kind();
+            case CALIBRATION -> d.kind().label();
         };
         return what + " (" + d.group() + ")";
     }

@@ -13,7 +13,9 @@ import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVPrinter;
 import org.apache.commons.csv.CSVRecord;
 import reprise.experiment.Case;
+import reprise.experiment.ComparisonKind;
 import reprise.experiment.ResultRow;
+import reprise.experiment.Subject;
 import reprise.experiment.Verdict;
 import reprise.game.Horizon;
 
@@ -55,8 +57,8 @@ public final class ResultsCsv {
                 for (ResultRow r : rows) {
                     Case c = cases.get(r.caseIndex());
                     List<String> cells = caseCells(c, parameters);
-                    cells.add(r.quantity());
-                    cells.add(r.comparison());
+                    cells.add(r.subject().label());
+                    cells.add(r.comparisonKind().label());
                     cells.add(num(r.predicted()));
                     cells.add(num(r.observed()));
                     cells.add(num(r.lower()));
@@ -66,7 +68,7 @@ public final class ResultsCsv {
                     cells.add(num(r.pValue()));
                     cells.add(num(r.adjustedP()));
                     cells.add(r.verdict().word());
-                    cells.add(r.note() == null ? "" : r.note());
+                    cells.add(r.note());
                     out.printRecord(cells);
                 }
             }
@@ -95,8 +97,10 @@ public final class ResultsCsv {
      * Reads a results file back.
      *
      * @param file the file
-     * @return the rows (caseIndex is the row's position among distinct cases, in file order)
-     * @throws IllegalArgumentException if the file is not a results file
+     * @return the rows (caseIndex is the row's position among distinct cases, in file order; the
+     *     small-sample method is not in the file and reads back as {@code NONE})
+     * @throws IllegalArgumentException if the file is not a results file, or names an unknown quantity or
+     *     comparison
      */
     public static List<ResultRow> read(Path file) {
         List<ResultRow> rows = new ArrayList<>();
@@ -114,11 +118,12 @@ public final class ResultsCsv {
                 if (!caseIds.contains(id)) {
                     caseIds.add(id);
                 }
-                rows.add(new ResultRow(caseIds.indexOf(id), id, rec.get("quantity"), rec.get("comparison"),
-                    parse(rec.get("predicted")), parse(rec.get("observed")), parse(rec.get("ci_lower")),
-                    parse(rec.get("ci_upper")), parse(rec.get("statistic")), parse(rec.get("df")),
-                    parse(rec.get("p_value")), parse(rec.get("p_adjusted")), Verdict.ofWord(rec.get("verdict")),
-                    rec.get("note")));
+                rows.add(ResultRow.builder(caseIds.indexOf(id), id, Subject.ofLabel(rec.get("quantity")),
+                    ComparisonKind.ofLabel(rec.get("comparison"))).predicted(parse(rec.get("predicted")))
+                    .observed(parse(rec.get("observed"))).interval(parse(rec.get("ci_lower")), parse(rec.get("ci_upper")))
+                    .test(parse(rec.get("statistic")), parse(rec.get("df")), parse(rec.get("p_value")))
+                    .adjustedP(parse(rec.get("p_adjusted"))).verdict(Verdict.ofWord(rec.get("verdict")))
+                    .note(rec.get("note")).build());
             }
         } catch (IOException e) {
             throw new IllegalArgumentException(file + ": cannot be read: " + e.getMessage(), e);

@@ -177,7 +177,7 @@ public final class SnapshotTest {
             double p = enumerate(new long[k], 0, c.total, logP, logFactorial, observed + TIE_TOLERANCE);
             return new TestResult(pearson(c), k - 1, Math.min(1, p), String.format(Locale.ROOT,
                 "exact multinomial test, %d outcomes enumerated (an expected count is below %s)",
-                (long) compositions, minimumExpected));
+                (long) compositions, minimumExpected), TestResult.SmallSample.EXACT);
         }
         if (rng == null) {
             throw new IllegalStateException(String.format(Locale.ROOT, "exact test needs %.3g compositions, above "
@@ -194,7 +194,8 @@ public final class SnapshotTest {
         }
         double p = (1.0 + noMoreLikely) / (samples + 1.0);
         return new TestResult(pearson(c), k - 1, p, String.format(Locale.ROOT,
-            "Monte Carlo multinomial test, %d samples, p = (1 + %d)/(M + 1)", samples, noMoreLikely));
+            "Monte Carlo multinomial test, %d samples, p = (1 + %d)/(M + 1)", samples, noMoreLikely),
+            TestResult.SmallSample.MONTE_CARLO);
     }
 
     private double enumerate(long[] x, int j, long remaining, double[] logP, double[] logFactorial, double bound) {

@@ -15,8 +15,78 @@ package reprise.stats;
  * @param pValue the p-value in [0, 1]
  * @param note a one-line remark on how the test was done (method used, components dropped, why p = 0);
  *     empty when there is nothing to say
+ * @param smallSample what was done because expected counts were too small for the large-sample reference
+ *     distribution ({@link SmallSample#NONE} when nothing was), the structured form of part of the note
  */
-public record TestResult(double statistic, double degreesOfFreedom, double pValue, String note) {
+public record TestResult(double statistic, double degreesOfFreedom, double pValue, String note,
+    SmallSample smallSample) {
+
+    /**
+     * What a test did about expected counts too small for its chi-square or normal reference
+     * distribution: the method, and for pooling the number of cells merged into another.
+     *
+     * @param method the remedy; a new remedy is added as a constant of {@link Method}
+     * @param cellsPooled the cells merged into another: at least 1 for {@link Method#POOLED}, else 0
+     */
+    public record SmallSample(Method method, int cellsPooled) {
+
+        /** Nothing was done. */
+        public static final SmallSample NONE = new SmallSample(Method.NONE, 0);
+        /** An exact test by enumeration. */
+        public static final SmallSample EXACT = new SmallSample(Method.EXACT, 0);
+        /** A Monte Carlo estimate of the exact p-value. */
+        public static final SmallSample MONTE_CARLO = new SmallSample(Method.MONTE_CARLO, 0);
+
+        /** The remedies. */
+        public enum Method {
+            /** Nothing: the large-sample reference distribution was used as is (or none was needed). */
+            NONE,
+            /** Sparse cells of a contingency table were pooled before the chi-square test. */
+            POOLED,
+            /** An exact test by complete enumeration replaced the chi-square approximation. */
+            EXACT,
+            /** A Monte Carlo estimate of the exact p-value replaced the chi-square approximation. */
+            MONTE_CARLO
+        }
+
+        /**
+         * Validates the pair.
+         *
+         * @param method not null
+         * @param cellsPooled positive exactly for pooling
+         */
+        public SmallSample {
+            if (method == null) {
+                throw new IllegalArgumentException("small-sample method must not be null (use NONE)");
+            }
+            if ((method == Method.POOLED) != (cellsPooled > 0) || cellsPooled < 0) {
+                throw new IllegalArgumentException("cells pooled must be positive for pooling and 0 otherwise: "
+                    + method + ", " + cellsPooled);
+            }
+        }
+
+        /**
+         * Pooling of sparse cells.
+         *
+         * @param cells the cells merged into another, at least 1
+         * @return the remedy
+         */
+        public static SmallSample pooled(int cells) {
+            return new SmallSample(Method.POOLED, cells);
+        }
+    }
+
+    /**
+     * A result with {@link SmallSample#NONE}.
+     *
+     * @param statistic not NaN
+     * @param degreesOfFreedom at least 0; positive infinity for a normal (z) reference
+     * @param pValue in [0, 1]
+     * @param note not null
+     */
+    public TestResult(double statistic, double degreesOfFreedom, double pValue, String note) {
+        this(statistic, degreesOfFreedom, pValue, note, SmallSample.NONE);
+    }
 
     /**
      * Validates the result.
@@ -25,6 +95,7 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
      * @param degreesOfFreedom at least 0; positive infinity for a normal (z) reference
      * @param pValue in [0, 1]
      * @param note not null
+     * @param smallSample not null
      */
     public TestResult {
         if (Double.isNaN(statistic)) {
@@ -38,6 +109,9 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
         if (note == null) {
             throw new IllegalArgumentException("note must not be null (use an empty string)");
         }
+        if (smallSample == null) {
+            throw new IllegalArgumentException("small-sample method must not be null (use NONE)");
+        }
     }
 
     /**
@@ -49,6 +123,17 @@ public record TestResult(double statistic, double degreesOfFreedom, double pValu
     public boolean reject(double alpha) {
         Checks.level("significance level alpha", alpha);
         return pValue < alpha;
+    }
+
+    /**
+     * The same result with more note text and a small-sample method.
+     *
+     * @param extra appended to the note as is (include any separator)
+     * @param remedy the small-sample remedy now in effect
+     * @return a new result
+     */
+    public TestResult withSmallSample(String extra, SmallSample remedy) {
+        return new TestResult(statistic, degreesOfFreedom, pValue, note + extra, remedy);
     }
 
     static TestResult impossible(double degreesOfFreedom, String why) {

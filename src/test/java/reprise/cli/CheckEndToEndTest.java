@@ -15,7 +15,10 @@ import java.util.List;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import reprise.experiment.BaseQuantity;
+import reprise.experiment.ComparisonKind;
 import reprise.experiment.ResultRow;
+import reprise.experiment.Subject;
 import reprise.experiment.Verdict;
 import reprise.output.ResultsCsv;
 
@@ -78,13 +81,15 @@ class CheckEndToEndTest {
             assertTrue(Files.size(out.resolve(f)) > 0, f);
         }
         List<ResultRow> rows = ResultsCsv.read(out.resolve("results.csv"));
-        assertTrue(rows.stream().anyMatch(x -> x.quantity().equals("states") && x.comparison().equals("exact")));
-        assertTrue(rows.stream().anyMatch(x -> x.quantity().equals("transitions")));
-        assertTrue(rows.stream().anyMatch(x -> x.quantity().equals("snapshot_3")));
-        assertTrue(rows.stream().noneMatch(x -> x.verdict() == Verdict.DISAGREES && !x.comparison().equals("stationary")));
+        assertTrue(rows.stream().anyMatch(x -> x.subject() == Subject.Joint.STATES
+            && x.comparisonKind() == ComparisonKind.EXACT));
+        assertTrue(rows.stream().anyMatch(x -> x.subject() == Subject.Joint.TRANSITIONS));
+        assertTrue(rows.stream().anyMatch(x -> x.subject().equals(new Subject.Snapshot(3))));
+        assertTrue(rows.stream().noneMatch(x -> x.verdict() == Verdict.DISAGREES
+            && x.comparisonKind() != ComparisonKind.STATIONARY));
         // TFT vs TFT with execution error: stationary payoff 9/4 (REFERENCES item 3).
         ResultRow stationary = rows.stream().filter(x -> x.caseId().equals("tit-for-tats/noise=0.05/rounds=400")
-            && x.quantity().equals("payoff_x") && x.comparison().equals("stationary")).findFirst().orElseThrow();
+            && x.subject() == BaseQuantity.PAYOFF_X && x.comparisonKind() == ComparisonKind.STATIONARY).findFirst().orElseThrow();
         assertEquals(2.25, stationary.predicted(), 1e-12);
 
         JsonNode run = new ObjectMapper().readTree(out.resolve("run.json").toFile());
@@ -141,10 +146,10 @@ class CheckEndToEndTest {
         assertTrue(r.out().contains("disagrees: tit-for-tats/noise=0.1/rounds=400 payoff_y"), r.out());
         List<ResultRow> rows = ResultsCsv.read(out.resolve("results.csv"));
         ResultRow good = rows.stream().filter(x -> x.caseId().equals("tit-for-tats/noise=0.05/rounds=400")
-            && x.comparison().equals("claim-vs-exact")).findFirst().orElseThrow();
+            && x.comparisonKind() == ComparisonKind.CLAIM_VS_EXACT).findFirst().orElseThrow();
         assertEquals(Verdict.AGREES, good.verdict());
         ResultRow bad = rows.stream().filter(x -> x.caseId().equals("tit-for-tats/noise=0.1/rounds=400")
-            && x.comparison().equals("claim-vs-simulation")).findFirst().orElseThrow();
+            && x.comparisonKind() == ComparisonKind.CLAIM_VS_SIMULATION).findFirst().orElseThrow();
         assertEquals(Verdict.DISAGREES, bad.verdict());
         assertTrue(Files.readString(out.resolve("report.md")).contains("comparisons disagree"));
     }

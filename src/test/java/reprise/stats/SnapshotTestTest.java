@@ -38,6 +38,7 @@ class SnapshotTestTest {
         // 1e-14: ten products of short decimals, summed in double.
         assertEquals(p, r.pValue(), 1e-14);
         assertTrue(r.note().startsWith("exact multinomial test, 10 outcomes"), r.note());
+        assertEquals(TestResult.SmallSample.EXACT, r.smallSample());
         assertEquals(2, r.degreesOfFreedom());
     }
 
@@ -51,6 +52,7 @@ class SnapshotTestTest {
         TestResult r = t.test(new long[] {0, 1, 2, 0}, new double[] {0.5, 0.3, 0.2, 0});
         assertEquals(0.071, r.pValue(), 0.01, "seed " + seed);
         assertTrue(r.note().startsWith("Monte Carlo"), r.note());
+        assertEquals(TestResult.SmallSample.MONTE_CARLO, r.smallSample());
     }
 
     @Test
@@ -71,6 +73,7 @@ class SnapshotTestTest {
         assertEquals(x2, r.statistic(), 1e-13);
         assertEquals(ChiSquaredDistribution.of(3).survivalProbability(x2), r.pValue(), 1e-14);
         assertEquals("Pearson chi-square", r.note());
+        assertEquals(TestResult.SmallSample.NONE, r.smallSample());
     }
 
     @Test

@@ -13,6 +13,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import reprise.experiment.CalibrationStudy;
+import reprise.experiment.TestId;
 import reprise.game.Horizon;
 import reprise.game.Match;
 import reprise.game.Noise;
@@ -86,7 +87,7 @@ class CalibrationStudyTest {
                 System.out.println(String.format(Locale.ROOT, "  %-50s %.3f  KS p %.3g", t.name(), rate,
                     t.summary().uniformityPValue()));
                 if (t.illustration()) {
-                    assertTrue(t.name().contains("ILLUSTRATION"), t.name());
+                    assertEquals(TestId.Standard.POOLED_ROUNDS_ILLUSTRATION, t.test(), t.name());
                     continue;
                 }
                 valid++;
@@ -116,7 +117,8 @@ class CalibrationStudyTest {
         for (CalibrationStudy.TestCalibration t : r.tests()) {
             System.out.println(String.format(Locale.ROOT, "  %-50s %.3f", t.name(),
                 t.summary().rejectionRate().estimate()));
-            if (t.name().startsWith("frequencies") || t.name().startsWith("transitions")) {
+            if (t.test() == TestId.Standard.FREQUENCIES_WALD || t.test() == TestId.Standard.TRANSITIONS_PEARSON
+                || t.test() == TestId.Standard.TRANSITIONS_LR) {
                 best = Math.max(best, t.summary().rejectionRate().estimate());
             }
         }

@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
@@ -15,12 +14,14 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import reprise.chain.CountMoments;
+import reprise.experiment.BaseQuantity;
 import reprise.experiment.CalibrationStudy;
 import reprise.experiment.CaseAnalysis;
-import reprise.experiment.Quantities;
+import reprise.experiment.TestId;
 import reprise.game.Horizon;
 import reprise.game.Match;
 import reprise.game.Noise;
+import reprise.game.StageGame;
 import reprise.sim.SimulationResult;
 import reprise.sim.SimulationSpec;
 import reprise.sim.Simulator;
@@ -49,12 +50,8 @@ class CrossValidationTest {
             .withThreads(threads)).run();
     }
 
-    private static Map<String, double[]> stateWeights() {
-        Map<String, double[]> w = new LinkedHashMap<>();
-        for (String q : List.of("CC", "CD", "DC", "DD")) {
-            w.put(q, Quantities.weights(q, reprise.game.StageGame.DEFAULT));
-        }
-        return w;
+    private static Map<TestId, TestResult> stateTests(CaseAnalysis.Exact exact, SimulationResult r) {
+        return CaseAnalysis.tests(exact, r, StageGame.DEFAULT, BaseQuantity.STATES);
     }
 
     @Test
@@ -71,18 +68,19 @@ class CrossValidationTest {
             long seed = SEED + i;
             CaseAnalysis.Exact exact = CaseAnalysis.exact(c.match(), c.horizon(), c.burnIn());
             SimulationResult r = simulate(c, seed, 2);
-            for (CaseAnalysis.Named t : CaseAnalysis.tests(exact, r, stateWeights())) {
-                if (t.name().equals("frequencies (Wald)") || t.name().equals("transitions (Pearson)")) {
+            for (Map.Entry<TestId, TestResult> t : stateTests(exact, r).entrySet()) {
+                TestId id = t.getKey();
+                if (id == TestId.Standard.FREQUENCIES_WALD || id == TestId.Standard.TRANSITIONS_PEARSON) {
                     tests++;
-                    if (t.result().reject(ALPHA)) {
-                        rejected.add(c + " seed " + seed + ": " + t.name() + " p = " + t.result().pValue());
+                    if (t.getValue().reject(ALPHA)) {
+                        rejected.add(c + " seed " + seed + ": " + id.label() + " p = " + t.getValue().pValue());
                     }
-                } else if (t.name().startsWith("z ")) {
-                    double z = t.result().statistic();
-                    if (exact.value(stateWeights().get(t.name().substring(2))) > 0) {
+                } else if (id instanceof TestId.ZScore zs) {
+                    double z = t.getValue().statistic();
+                    if (exact.value(zs.quantity().weights(StageGame.DEFAULT)) > 0) {
                         zTests++;
                         if (!(Math.abs(z) < zBound)) {
-                            zFailures.add(c + " seed " + seed + ": " + t.name() + " = " + z);
+                            zFailures.add(c + " seed " + seed + ": " + id.label() + " = " + z);
                         }
                     }
                 }
@@ -119,19 +117,18 @@ class CrossValidationTest {
         CalibrationStudy.Result two = CalibrationStudy.of(s.withThreads(2)).withRepetitions(6).run(null);
         assertEquals(one.tests().size(), two.tests().size());
         for (int i = 0; i < one.tests().size(); i++) {
-            assertEquals(one.tests().get(i).name(), two.tests().get(i).name());
+            assertEquals(one.tests().get(i).test(), two.tests().get(i).test());
             assertArrayEquals(one.tests().get(i).pValues(), two.tests().get(i).pValues());
         }
         assertEquals(one.roundsTotal(), two.roundsTotal());
     }
 
-    private static TestResult named(List<CaseAnalysis.Named> tests, String name) {
-        for (CaseAnalysis.Named t : tests) {
-            if (t.name().equals(name)) {
-                return t.result();
-            }
+    private static TestResult named(Map<TestId, TestResult> tests, TestId id) {
+        TestResult t = tests.get(id);
+        if (t == null) {
+            throw new AssertionError("no test " + id.label() + " in " + tests);
         }
-        throw new AssertionError("no test named " + name + " in " + tests);
+        return t;
     }
 
     /**
@@ -144,10 +141,10 @@ class CrossValidationTest {
         Cases.Case c = new Cases.Case("tft vs tft", "tft", "tft", new Noise(0.05, 0.05, 0, 0), Horizon.rounds(50), 0,
             2000);
         Match wrong = new Match(c.match().game(), c.match().x(), c.match().y(), new Noise(0.04, 0.04, 0, 0));
-        List<CaseAnalysis.Named> tests = CaseAnalysis.tests(CaseAnalysis.exact(wrong, c.horizon(), 0),
-            simulate(c, SEED, 2), Map.of());
-        assertTrue(named(tests, "transitions (Pearson)").pValue() < 1e-4, tests.toString());
-        assertTrue(named(tests, "transitions (LR)").pValue() < 1e-4, tests.toString());
+        Map<TestId, TestResult> tests = CaseAnalysis.tests(CaseAnalysis.exact(wrong, c.horizon(), 0),
+            simulate(c, SEED, 2));
+        assertTrue(named(tests, TestId.Standard.TRANSITIONS_PEARSON).pValue() < 1e-4, tests.toString());
+        assertTrue(named(tests, TestId.Standard.TRANSITIONS_LR).pValue() < 1e-4, tests.toString());
     }
 
     /**
@@ -174,11 +171,12 @@ class CrossValidationTest {
         CaseAnalysis.Exact swapped = new CaseAnalysis.Exact(e.chain(), e.prediction(), new CountMoments(m2, c2), f2,
             e.transitions(), e.transitionsNote());
         SimulationResult r = simulate(c, SEED, 2);
-        List<CaseAnalysis.Named> good = CaseAnalysis.tests(e, r, stateWeights());
-        List<CaseAnalysis.Named> bad = CaseAnalysis.tests(swapped, r, stateWeights());
-        assertTrue(named(bad, "frequencies (Wald)").pValue() < 1e-6, bad.toString());
-        assertTrue(named(bad, "z CD").pValue() < 1e-6, bad.toString());
-        assertTrue(named(good, "frequencies (Wald)").pValue() > 1e-6, "the unplanted case must pass: " + good);
+        Map<TestId, TestResult> good = stateTests(e, r);
+        Map<TestId, TestResult> bad = stateTests(swapped, r);
+        assertTrue(named(bad, TestId.Standard.FREQUENCIES_WALD).pValue() < 1e-6, bad.toString());
+        assertTrue(named(bad, new TestId.ZScore(BaseQuantity.CD)).pValue() < 1e-6, bad.toString());
+        assertTrue(named(good, TestId.Standard.FREQUENCIES_WALD).pValue() > 1e-6, "the unplanted case must pass: "
+            + good);
     }
 
     /** Predicting n + 1 rounds for an n-round game: every game's counts sum to n, impossible under n + 1. */
@@ -186,7 +184,7 @@ class CrossValidationTest {
     void horizonOffByOneIsCaught() {
         Cases.Case c = Cases.all().get(0);
         CaseAnalysis.Exact wrong = CaseAnalysis.exact(c.match(), Horizon.rounds(51), 0);
-        TestResult w = named(CaseAnalysis.tests(wrong, simulate(c, SEED, 2), Map.of()), "frequencies (Wald)");
+        TestResult w = named(CaseAnalysis.tests(wrong, simulate(c, SEED, 2)), TestId.Standard.FREQUENCIES_WALD);
         assertEquals(0, w.pValue(), w.toString());
         assertNotNull(w.note());
     }
@@ -202,10 +200,10 @@ class CrossValidationTest {
             Horizon.rounds(10), 0, 20000);
         CaseAnalysis.Exact shifted = CaseAnalysis.exact(c.match(), Horizon.rounds(11), 1);
         SimulationResult r = simulate(c, SEED, 2);
-        TestResult w = named(CaseAnalysis.tests(shifted, r, Map.of()), "frequencies (Wald)");
+        TestResult w = named(CaseAnalysis.tests(shifted, r), TestId.Standard.FREQUENCIES_WALD);
         assertTrue(w.pValue() < 1e-6, w.toString());
-        TestResult right = named(CaseAnalysis.tests(CaseAnalysis.exact(c.match(), c.horizon(), 0), r, Map.of()),
-            "frequencies (Wald)");
+        TestResult right = named(CaseAnalysis.tests(CaseAnalysis.exact(c.match(), c.horizon(), 0), r),
+            TestId.Standard.FREQUENCIES_WALD);
         assertTrue(right.pValue() > 1e-6, right.toString());
     }
 }
