@@ -26,9 +26,9 @@ import reprise.game.Horizon;
  */
 public final class Claims {
 
-    /** The quantities a claim can be about. */
-    public static final List<String> QUANTITIES = List.of("CC", "CD", "DC", "DD", "coop_x", "coop_y", "payoff_x",
-        "payoff_y");
+    /** The names of the quantities a claim can be about, as written in the header. */
+    public static final List<String> QUANTITIES = java.util.Arrays.stream(BaseQuantity.values())
+        .map(BaseQuantity::label).toList();
 
     private Claims() {
     }
@@ -84,51 +84,19 @@ public final class Claims {
      * @param file the CSV file
      * @param experiment the experiment
      * @param cases its expanded cases
-     * @return for each case index that has claims, the claims by quantity name
+     * @return for each case index that has claims, the claims by quantity, in file order
      * @throws InvalidExperimentException listing every problem with file, line and column
      */
-    public static Map<Integer, Map<String, Claim>> read(Path file, Experiment experiment, List<Case> cases) {
+    public static Map<Integer, Map<BaseQuantity, Claim>> read(Path file, Experiment experiment, List<Case> cases) {
         Problems problems = new Problems(file.toString());
-        Map<Integer, Map<String, Claim>> out = new LinkedHashMap<>();
-        List<String> keyColumns = new ArrayList<>(List.of("pair", "noise", "misperception",
-            experiment.horizons().get(0) instanceof Horizon.Rounds ? "rounds" : "continuation"));
-        keyColumns.addAll(experiment.parameters().keySet());
-        List<String> known = new ArrayList<>(keyColumns);
-        known.addAll(QUANTITIES);
+        Map<Integer, Map<BaseQuantity, Claim>> out = new LinkedHashMap<>();
         CSVFormat format = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).setTrim(true)
             .setIgnoreEmptyLines(true).setCommentMarker('#').build();
-        String text;
-        try {
-            text = InputFiles.text(file, "claims file");
-        } catch (IOException | IllegalArgumentException e) {
-            problems.add(0, "file", e instanceof IOException ? "cannot be read: " + e.getMessage() : e.getMessage());
-            problems.throwIfAny();
-            throw new IllegalStateException(e);
-        }
-        Object[] duplicated = duplicatedColumn(text, format);
-        if (duplicated != null) {
-            problems.add((int) duplicated[1], (String) duplicated[0], "column appears twice in the header; give each column once");
-            problems.throwIfAny();
-        }
+        String text = text(file, format, problems);
         try (Reader r = new java.io.StringReader(text); CSVParser parser = format.parse(r)) {
             List<String> header = parser.getHeaderNames();
-            int headerLine = (int) Math.max(1, parser.getCurrentLineNumber());
-            if (!header.contains("pair")) {
-                problems.add(headerLine, "pair", "column is missing; the header needs pair and at least one of "
-                    + String.join(", ", QUANTITIES));
-            }
-            List<String> valueColumns = new ArrayList<>();
-            for (String h : header) {
-                if (!known.contains(h)) {
-                    problems.add(headerLine, h, "unknown column" + Problems.didYouMean(h, known) + "; known: "
-                        + String.join(", ", known));
-                } else if (QUANTITIES.contains(h)) {
-                    valueColumns.add(h);
-                }
-            }
-            if (valueColumns.isEmpty()) {
-                problems.add(headerLine, "header", "no value column; give at least one of " + String.join(", ", QUANTITIES));
-            }
+            List<BaseQuantity> valueColumns = valueColumns(header, knownColumns(experiment),
+                (int) Math.max(1, parser.getCurrentLineNumber()), problems);
             problems.throwIfAny();
             for (CSVRecord rec : parser) {
                 long line = physicalLine(parser, rec);
@@ -136,46 +104,15 @@ public final class Claims {
                     problems.add((int) line, "row", "has " + rec.size() + " cells, the header has " + header.size());
                     continue;
                 }
-                Map<String, Double> values = new LinkedHashMap<>();
-                for (String q : valueColumns) {
-                    String cell = rec.get(q);
-                    if (cell.isEmpty()) {
-                        continue;
-                    }
-                    try {
-                        double v = Double.parseDouble(cell);
-                        if (!Double.isFinite(v)) {
-                            throw new NumberFormatException();
-                        }
-                        if (!q.startsWith("payoff") && !(v >= 0 && v <= 1)) {
-                            problems.add((int) line, q, "is a frequency and must be in [0, 1]: " + cell);
-                            continue;
-                        }
-                        values.put(q, v);
-                    } catch (NumberFormatException e) {
-                        problems.add((int) line, q, "must be a finite number: '" + cell + "'");
-                    }
-                }
-                List<Case> matches = new ArrayList<>();
-                for (Case c : cases) {
-                    if (matches(c, rec, header)) {
-                        matches.add(c);
-                    }
-                }
+                Map<BaseQuantity, Double> values = values(rec, valueColumns, line, problems);
+                List<Case> matches = cases.stream().filter(c -> matches(c, rec, header)).toList();
                 if (matches.isEmpty()) {
                     problems.add((int) line, "row", "matches no grid point of the experiment (" + describe(rec, header)
                         + ")");
                     continue;
                 }
                 for (Case c : matches) {
-                    Map<String, Claim> m = out.computeIfAbsent(c.index(), k -> new LinkedHashMap<>());
-                    for (Map.Entry<String, Double> v : values.entrySet()) {
-                        Claim prev = m.put(v.getKey(), new Claim(v.getValue(), line));
-                        if (prev != null) {
-                            problems.add((int) line, v.getKey(), "case " + c.id() + " already has a claim for "
-                                + v.getKey() + " from line " + prev.line());
-                        }
-                    }
+                    record(out.computeIfAbsent(c.index(), k -> new LinkedHashMap<>()), c, values, line, problems);
                 }
             }
         } catch (IOException | IllegalArgumentException e) {
@@ -186,6 +123,94 @@ public final class Claims {
         }
         problems.throwIfAny();
         return out;
+    }
+
+    /** The file's text, after the checks of {@link InputFiles} and the duplicate-column check. */
+    private static String text(Path file, CSVFormat format, Problems problems) {
+        String text;
+        try {
+            text = InputFiles.text(file, "claims file");
+        } catch (IOException | IllegalArgumentException e) {
+            problems.add(0, "file", e instanceof IOException ? "cannot be read: " + e.getMessage() : e.getMessage());
+            problems.throwIfAny();
+            throw new IllegalStateException(e);
+        }
+        Object[] duplicated = duplicatedColumn(text, format);
+        if (duplicated != null) {
+            problems.add((int) duplicated[1], (String) duplicated[0], "column appears twice in the header; give each "
+                + "column once");
+            problems.throwIfAny();
+        }
+        return text;
+    }
+
+    /** The key columns of this experiment's claims files, then the value columns. */
+    private static List<String> knownColumns(Experiment experiment) {
+        List<String> known = new ArrayList<>(List.of("pair", "noise", "misperception",
+            experiment.horizons().get(0) instanceof Horizon.Rounds ? "rounds" : "continuation"));
+        known.addAll(experiment.parameters().keySet());
+        known.addAll(QUANTITIES);
+        return known;
+    }
+
+    /** The header's value columns, after reporting a missing pair column and unknown columns. */
+    private static List<BaseQuantity> valueColumns(List<String> header, List<String> known, int headerLine,
+        Problems problems) {
+        if (!header.contains("pair")) {
+            problems.add(headerLine, "pair", "column is missing; the header needs pair and at least one of "
+                + String.join(", ", QUANTITIES));
+        }
+        List<BaseQuantity> valueColumns = new ArrayList<>();
+        for (String h : header) {
+            if (!known.contains(h)) {
+                problems.add(headerLine, h, "unknown column" + Problems.didYouMean(h, known) + "; known: "
+                    + String.join(", ", known));
+            } else if (QUANTITIES.contains(h)) {
+                valueColumns.add(BaseQuantity.ofLabel(h));
+            }
+        }
+        if (valueColumns.isEmpty()) {
+            problems.add(headerLine, "header", "no value column; give at least one of " + String.join(", ", QUANTITIES));
+        }
+        return valueColumns;
+    }
+
+    /** The claimed values of one row (empty cells claim nothing); bad cells are reported. */
+    private static Map<BaseQuantity, Double> values(CSVRecord rec, List<BaseQuantity> columns, long line,
+        Problems problems) {
+        Map<BaseQuantity, Double> values = new LinkedHashMap<>();
+        for (BaseQuantity q : columns) {
+            String cell = rec.get(q.label());
+            if (cell.isEmpty()) {
+                continue;
+            }
+            double v;
+            try {
+                v = Double.parseDouble(cell);
+            } catch (NumberFormatException e) {
+                v = Double.NaN;
+            }
+            if (!Double.isFinite(v)) {
+                problems.add((int) line, q.label(), "must be a finite number: '" + cell + "'");
+            } else if (q.isFrequency() && !(v >= 0 && v <= 1)) {
+                problems.add((int) line, q.label(), "is a frequency and must be in [0, 1]: " + cell);
+            } else {
+                values.put(q, v);
+            }
+        }
+        return values;
+    }
+
+    /** Adds a row's values to one case's claims, reporting a second claim of the same quantity. */
+    private static void record(Map<BaseQuantity, Claim> claims, Case c, Map<BaseQuantity, Double> values, long line,
+        Problems problems) {
+        for (Map.Entry<BaseQuantity, Double> v : values.entrySet()) {
+            Claim prev = claims.put(v.getKey(), new Claim(v.getValue(), line));
+            if (prev != null) {
+                problems.add((int) line, v.getKey().label(), "case " + c.id() + " already has a claim for "
+                    + v.getKey().label() + " from line " + prev.line());
+            }
+        }
     }
 
     private static boolean matches(Case c, CSVRecord rec, List<String> header) {

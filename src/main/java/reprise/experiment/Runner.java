@@ -213,10 +213,10 @@ public final class Runner {
      * @param claims claims by case index, each by the quantity's name in the claims file (may be empty)
      * @return the outcome
      */
-    public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, Map<String, Claims.Claim>> claims) {
+    public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, Map<BaseQuantity, Claims.Claim>> claims) {
         List<Comparisons.Pending> pending = new ArrayList<>();
         for (CaseResult r : results) {
-            pending.addAll(Comparisons.rows(e, r, byQuantity(claims.get(r.c().index()))));
+            pending.addAll(Comparisons.rows(e, r, claims.get(r.c().index())));
         }
         List<Integer> diff = new ArrayList<>();
         List<Integer> equiv = new ArrayList<>();
@@ -247,16 +247,6 @@ public final class Runner {
                 + "is right (use correction: holm)");
         }
         return new Outcome(rows, warnings, disagrees);
-    }
-
-    /** The claims of one case keyed by quantity, in the order of the claims file; null stays null. */
-    private static Map<BaseQuantity, Claims.Claim> byQuantity(Map<String, Claims.Claim> claims) {
-        if (claims == null) {
-            return null;
-        }
-        Map<BaseQuantity, Claims.Claim> out = new java.util.LinkedHashMap<>();
-        claims.forEach((name, claim) -> out.put(BaseQuantity.ofLabel(name), claim));
-        return out;
     }
 
     /** Adjusted p-values spread back to their rows; NaN for rows not in {@code idx}. */

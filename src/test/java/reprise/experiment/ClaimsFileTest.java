@@ -31,10 +31,10 @@ class ClaimsFileTest {
         Path plain = Files.writeString(tmp.resolve("plain.csv"), "pair,CC\np,0.25\n");
         Path marked = tmp.resolve("marked.csv");
         Files.write(marked, ("\ufeffpair,CC\np,0.25\n").getBytes(StandardCharsets.UTF_8));
-        Map<Integer, Map<String, Claims.Claim>> a = Claims.read(plain, e, e.cases());
-        Map<Integer, Map<String, Claims.Claim>> b = Claims.read(marked, e, e.cases());
+        Map<Integer, Map<BaseQuantity, Claims.Claim>> a = Claims.read(plain, e, e.cases());
+        Map<Integer, Map<BaseQuantity, Claims.Claim>> b = Claims.read(marked, e, e.cases());
         assertEquals(a, b);
-        assertEquals(0.25, b.get(0).get("CC").value());
+        assertEquals(0.25, b.get(0).get(BaseQuantity.CC).value());
     }
 
     @Test

@@ -97,11 +97,11 @@ class ExperimentFileTest {
         Experiment e = ExperimentFile.read(write("length-study.yaml", yaml.group(1)));
         List<Case> cases = e.cases();
         assertEquals(18, cases.size());
-        Map<Integer, Map<String, Claims.Claim>> claims = Claims.read(e.claims(), e, cases);
+        Map<Integer, Map<BaseQuantity, Claims.Claim>> claims = Claims.read(e.claims(), e, cases);
         // The README's value: Nowak & Sigmund (1990), s1 = (q1 + r1 q2)/(1 - r1 r2) with p' = 0.99 p + 0.01 (1 - p),
         // (0.206 + 0.686 * 0.402) / (1 - 0.686 * 0.294) = 0.603485 (computed by hand); here only its parsing is checked.
-        assertEquals(0.60349, claims.get(2).get("coop_x").value());
-        assertEquals(6, claims.values().stream().filter(m -> m.containsKey("payoff_x")).count());
+        assertEquals(0.60349, claims.get(2).get(BaseQuantity.COOPERATION_X).value());
+        assertEquals(6, claims.values().stream().filter(m -> m.containsKey(BaseQuantity.PAYOFF_X)).count());
     }
 
     static Stream<Arguments> badFiles() {
@@ -156,11 +156,11 @@ class ExperimentFileTest {
         Experiment e = ExperimentFile.read(write("ok.yaml", VALID));
         List<Case> cases = e.cases();
         Path ok = write("claims.csv", "pair,noise,rounds,CC,payoff_x\nkeepers,0.01,,0.5,\nextorted,,,,2.5\n");
-        Map<Integer, Map<String, Claims.Claim>> claims = Claims.read(ok, e, cases);
-        assertEquals(0.5, claims.get(0).get("CC").value());
-        assertEquals(0.5, claims.get(1).get("CC").value());
-        assertTrue(claims.get(2) == null || !claims.get(2).containsKey("CC"));
-        assertEquals(2.5, claims.get(11).get("payoff_x").value());
+        Map<Integer, Map<BaseQuantity, Claims.Claim>> claims = Claims.read(ok, e, cases);
+        assertEquals(0.5, claims.get(0).get(BaseQuantity.CC).value());
+        assertEquals(0.5, claims.get(1).get(BaseQuantity.CC).value());
+        assertTrue(claims.get(2) == null || !claims.get(2).containsKey(BaseQuantity.CC));
+        assertEquals(2.5, claims.get(11).get(BaseQuantity.PAYOFF_X).value());
 
         Path stray = write("stray.csv", "pair,rounds,CC\nkeepers,75,0.5\n");
         InvalidExperimentException ex = assertThrows(InvalidExperimentException.class, () -> Claims.read(stray, e, cases));
