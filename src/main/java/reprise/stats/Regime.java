@@ -124,6 +124,25 @@ public record Regime(long games, double modalProbability, double skewness, doubl
         return new Regime(games, modalFraction(v), skewness(v), stateMeans);
     }
 
+    /**
+     * As {@link #fromModelGames(long[][], double[], long)}, with the expected state counts taken from the
+     * exact model instead of the model games.
+     *
+     * @param modelGames per-game counts of M &ge; 2 model games
+     * @param weights w, the quantity
+     * @param games G
+     * @param exactMeanCounts E[N_s] of one game from the exact engine (e.g. {@code CountMoments.mean()})
+     * @return the regime, with expected state counts G E[N_s]
+     */
+    public static Regime fromModelGames(long[][] modelGames, double[] weights, long games, double[] exactMeanCounts) {
+        Regime sampled = fromModelGames(modelGames, weights, games);
+        double[] mu = Checks.finiteVector("exact mean counts", exactMeanCounts, 4);
+        for (int s = 0; s < 4; s++) {
+            mu[s] = Checks.nonNegative("exact mean count of state " + NAMES[s], mu[s]) * games;
+        }
+        return new Regime(games, sampled.modalProbability(), sampled.skewness(), mu);
+    }
+
     /** @return the expected number of informative games G (1 - m) */
     public double informativeGames() {
         return games * (1 - modalProbability);

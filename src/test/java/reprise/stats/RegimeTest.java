@@ -26,6 +26,9 @@ class RegimeTest {
         assertEquals(Regime.Kind.ORDINARY, r.kind());
         assertEquals(Regime.Kind.SPARSE, Regime.fromModelGames(g, new double[] {1, 0, 0, 0}, 60).kind());
         assertEquals(Regime.Kind.SKEWED, new Regime(1000, 0.5, 10, new double[4]).kind());
+        Regime exact = Regime.fromModelGames(g, new double[] {1, 0, 0, 0}, 100, new double[] {1.9, 0.1, 0, 0});
+        assertEquals(190, exact.expectedStateCounts()[0], 1e-12);
+        assertEquals(r.skewness(), exact.skewness(), 0);
     }
 
     @Test
