@@ -43,6 +43,31 @@ public final class SparseCells {
      * @param merged the number of cells merged into another
      */
     public record Pooled(long[][] counts, double[][] hypothesis, int merged) {
+
+        /**
+         * The smallest expected count n_i p0_ij over the cells kept (p0_ij &gt; 0) of the rows with
+         * transitions (n_i &gt; 0), the figure {@link TailTrust#cells} needs.
+         *
+         * @return the smallest expected count, +infinity if no row has a transition
+         */
+        public double smallestExpectedCount() {
+            double min = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < counts.length; i++) {
+                long ni = 0;
+                for (long v : counts[i]) {
+                    ni += v;
+                }
+                if (ni == 0) {
+                    continue;
+                }
+                for (double p : hypothesis[i]) {
+                    if (p > 0) {
+                        min = Math.min(min, ni * p);
+                    }
+                }
+            }
+            return min;
+        }
     }
 
     private SparseCells() {

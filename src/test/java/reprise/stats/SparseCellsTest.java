@@ -86,5 +86,7 @@ class SparseCellsTest {
         assertArrayEquals(new double[] {0.4, 0, 0, 0.6}, pooled.hypothesis()[0], 1e-15);
         // Rows with total 20 and p = 1/4 have expected 5 per cell: nothing to pool there.
         assertEquals(2, pooled.merged());
+        // Smallest expected count kept: row 0 has 20 * 0.4 = 8 and 12, the others 5.
+        assertEquals(5, pooled.smallestExpectedCount(), 1e-12);
     }
 }

@@ -98,4 +98,56 @@ class VerdictMeaningTest {
         }
         assertTrue(disagrees <= 27, disagrees + " of 300 runs said disagrees, seed " + seed);
     }
+
+    /**
+     * Issue 12 item 1 by simulation: right claims about wsls vs wsls at 0.5% in 5-round games with 10 games
+     * (CC, the exact value) were "disagrees" in every seed. With the finite-sample interval at 1 - 2 alpha
+     * (alpha = 0.05), DISAGREES needs the interval to miss the target on one side, probability at most 0.05;
+     * 200 runs, fail above 22: P(Binomial(200, 0.05) &gt; 22) = 3e-4 (normal approximation, z = 3.9).
+     */
+    @Test
+    void rightClaimsFromIdenticalGamesAreNotDisagrees() {
+        CoverageCases.Case c = CoverageCases.sparse().get(0);
+        double exact = c.exact();
+        ChainSampler sampler = ChainSampler.of(c.chain());
+        Regime regime = Regime.fromModelGames(sampler.sample(RandomSource.XO_RO_SHI_RO_128_PP.create(7), 4000,
+            c.horizon(), 0, new long[0]).perGameCounts(), CC, c.games());
+        long seed = 88;
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        int disagrees = 0;
+        for (int k = 0; k < 200; k++) {
+            Interval i = BoundedMeanInterval.choose(c.draw(sampler, rng), CC, 0, 1, 0.9, regime).interval();
+            if (Equivalence.assess(i, exact, 0.01).verdict() == Equivalence.Verdict.DISAGREES) {
+                disagrees++;
+            }
+        }
+        assertTrue(disagrees <= 22, disagrees + " of 200 right claims were disagrees, seed " + seed);
+    }
+
+    /**
+     * Power is kept on an ordinary case: a claim wrong by 2 h (h = 0.02) about CC of tft vs gtft at 0.05,
+     * 50 rounds, 1000 games, is DISAGREES through the chosen interval (the t-interval here) in at least 180 of
+     * 200 runs. With se about 0.0056 the non-equivalence z is about (0.04 - 0.02) / 0.0056 = 3.6, power about
+     * 0.97; fewer than 180 then has probability below 1e-5 (normal approximation, z = -5.8).
+     */
+    @Test
+    void claimsWrongByTwiceTheToleranceAreDisagrees() {
+        CoverageCases.Case c = new CoverageCases.Case("tft-gtft", "tft", "gtft", 0.05, 0, new Horizon.Rounds(50), 1000,
+            CC);
+        double exact = c.exact();
+        ChainSampler sampler = ChainSampler.of(c.chain());
+        Regime regime = Regime.fromModelGames(sampler.sample(RandomSource.XO_RO_SHI_RO_128_PP.create(7), 4000,
+            c.horizon(), 0, new long[0]).perGameCounts(), CC, c.games());
+        assertEquals(Regime.Kind.ORDINARY, regime.kind(), regime.describe());
+        long seed = 89;
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(seed);
+        int disagrees = 0;
+        for (int k = 0; k < 200; k++) {
+            Interval i = BoundedMeanInterval.choose(c.draw(sampler, rng), CC, 0, 1, 0.9, regime).interval();
+            if (Equivalence.assess(i, exact + 0.04, 0.02).verdict() == Equivalence.Verdict.DISAGREES) {
+                disagrees++;
+            }
+        }
+        assertTrue(disagrees >= 180, disagrees + " of 200 wrong claims were disagrees, seed " + seed);
+    }
 }
