@@ -19,9 +19,23 @@ import java.util.OptionalLong;
  *   <li>Ordinary difference p-value = 2 P(T &gt; |d|/se), reported for reference (it answers "is there any
  *       difference", which a large enough study always finds).</li>
  * </ul>
- * <b>Verdict.</b> {@link Verdict#AGREES} iff TOST p &lt; alpha; {@link Verdict#DISAGREES} iff the
- * non-equivalence p &lt; alpha (then the estimate is outside &plusmn;h and the one-sided difference test
- * also rejects); otherwise {@link Verdict#INCONCLUSIVE}. The first two cannot both hold. For an
+ * <b>Verdict: one meaning per word.</b> {@link Verdict#AGREES} = shown |d| &lt; h (TOST p &lt; alpha);
+ * {@link Verdict#DISAGREES} = shown |d| &gt; h (non-equivalence p &lt; alpha); otherwise
+ * {@link Verdict#INCONCLUSIVE} ({@link #verdict}). The first two cannot both hold (for alpha &lt; 0.5). With a
+ * multiple-testing correction, alpha is the corrected level or the p-values are the adjusted ones; a
+ * difference test that rejects while the estimate lies outside &plusmn;h is <em>not</em> "disagrees": it
+ * shows d &ne; 0, not |d| &gt; h.
+ *
+ * <p><b>Zero standard error.</b> With infinite degrees of freedom a zero standard error is known (a
+ * deterministic quantity) and the verdict is certain. With finite degrees of freedom it is a sample
+ * spread of zero: G identical games say nothing about how much the games can vary, so every p-value is 1
+ * and the verdict is INCONCLUSIVE; {@link #assess(Interval, double, double)} with a finite-sample interval
+ * ({@link BoundedMeanInterval}) then decides.
+ *
+ * <p><b>From any interval.</b> {@link #assess(Interval, double, double)} applies the same rule to a
+ * (1 - 2 alpha) interval [l, u] that need not be symmetric: AGREES iff target - h &lt; l and u &lt; target + h;
+ * DISAGREES iff u &lt; target - h or l &gt; target + h; otherwise INCONCLUSIVE (the interval inclusion form of
+ * TOST, Berger &amp; Hsu 1996, valid for any interval of that level). For an
  * inconclusive result the number of additional games needed is the smallest G' with
  * z_{1-alpha} se sqrt(G/G') &lt; | h - |d| |, i.e. assuming the estimate stays where it is and the standard
  * error shrinks as 1/sqrt(G) (normal quantile, as for large G); none is given when |d| = h.
@@ -31,6 +45,8 @@ import java.util.OptionalLong;
  *   <li>Schuirmann, D.J. (1987). A comparison of the two one-sided tests procedure and the power approach
  *       for assessing the equivalence of average bioavailability. Journal of Pharmacokinetics and
  *       Biopharmaceutics 15(6), 657-680.</li>
+ *   <li>Berger, R.L. &amp; Hsu, J.C. (1996). Bioequivalence trials, intersection-union tests and
+ *       equivalence confidence sets. Statistical Science 11(4), 283-319.</li>
  * </ul>
  */
 public final class Equivalence {
@@ -77,7 +93,77 @@ public final class Equivalence {
     public record BiasReport(double bias, double standardError, double biasInStandardErrors, String explanation) {
     }
 
+    /**
+     * A verdict from an interval.
+     *
+     * @param interval the (1 - 2 alpha) interval of the estimate
+     * @param target the value it is compared with
+     * @param tolerance h
+     * @param verdict AGREES, DISAGREES or INCONCLUSIVE
+     * @param reason one line: where the interval lies against [target - h, target + h]
+     */
+    public record IntervalVerdict(Interval interval, double target, double tolerance, Verdict verdict,
+                                  String reason) {
+    }
+
     private Equivalence() {
+    }
+
+    /**
+     * The one rule behind every verdict word: AGREES iff the equivalence (TOST) p-value is below alpha,
+     * else DISAGREES iff the non-equivalence p-value is below alpha, else INCONCLUSIVE.
+     *
+     * @param equivalencePValue the TOST p-value (adjusted, if a correction applies)
+     * @param nonEquivalencePValue the p-value for |d| &gt; h (adjusted, if a correction applies)
+     * @param alpha the level in (0, 0.5)
+     * @return the verdict
+     */
+    public static Verdict verdict(double equivalencePValue, double nonEquivalencePValue, double alpha) {
+        Checks.probability("equivalence p-value", equivalencePValue);
+        Checks.probability("non-equivalence p-value", nonEquivalencePValue);
+        checkAlpha(alpha);
+        return equivalencePValue < alpha ? Verdict.AGREES
+            : nonEquivalencePValue < alpha ? Verdict.DISAGREES : Verdict.INCONCLUSIVE;
+    }
+
+    /**
+     * The verdict from a (1 - 2 alpha) interval (see the class description).
+     *
+     * @param interval the interval, e.g. {@link BoundedMeanInterval#choose} at level 1 - 2 alpha
+     * @param target the value compared with
+     * @param tolerance h &gt; 0
+     * @return the verdict with its reason
+     */
+    public static IntervalVerdict assess(Interval interval, double target, double tolerance) {
+        Checks.finite("target", target);
+        double h = Checks.positive("tolerance h", tolerance);
+        double lo = target - h;
+        double hi = target + h;
+        Verdict v;
+        String why;
+        if (lo < interval.lower() && interval.upper() < hi) {
+            v = Verdict.AGREES;
+            why = "interval inside the tolerance";
+        } else if (interval.upper() < lo || interval.lower() > hi) {
+            v = Verdict.DISAGREES;
+            why = "interval entirely outside the tolerance";
+        } else {
+            v = Verdict.INCONCLUSIVE;
+            why = "interval overlaps an end of the tolerance";
+        }
+        return new IntervalVerdict(interval, target, h, v, why + ": [" + brief(interval.lower()) + ", "
+            + brief(interval.upper()) + "] against [" + brief(lo) + ", " + brief(hi) + "]");
+    }
+
+    /** Six significant digits without trailing zeros. */
+    private static String brief(double v) {
+        return new java.math.BigDecimal(String.format(Locale.ROOT, "%.6g", v)).stripTrailingZeros().toPlainString();
+    }
+
+    private static void checkAlpha(double alpha) {
+        if (!(alpha > 0 && alpha < 0.5)) {
+            throw new IllegalArgumentException("alpha must be in (0, 0.5): " + alpha);
+        }
     }
 
     /**
@@ -92,9 +178,7 @@ public final class Equivalence {
     public static Result assess(Estimate estimate, double target, double tolerance, double alpha) {
         Checks.finite("target", target);
         Checks.positive("tolerance h", tolerance);
-        if (!(alpha > 0 && alpha < 0.5)) {
-            throw new IllegalArgumentException("alpha must be in (0, 0.5): " + alpha);
-        }
+        checkAlpha(alpha);
         double d = estimate.value() - target;
         double se = estimate.standardError();
         double df = estimate.degreesOfFreedom();
@@ -102,20 +186,23 @@ public final class Equivalence {
         double pEquivalent;
         double pNotEquivalent;
         double pDifference;
-        if (se == 0) {
+        if (se == 0 && df == Double.POSITIVE_INFINITY) {
             pEquivalent = Math.abs(d) < h ? 0 : 1;
             pNotEquivalent = Math.abs(d) > h ? 0 : 1;
             pDifference = d == 0 ? 1 : 0;
+        } else if (se == 0) {
+            pEquivalent = 1;
+            pNotEquivalent = 1;
+            pDifference = 1;
         } else {
             pEquivalent = Math.max(Estimate.survival(df, (d + h) / se), Estimate.survival(df, (h - d) / se));
             pNotEquivalent = Math.min(Estimate.survival(df, (d - h) / se), Estimate.survival(df, (-h - d) / se));
             pDifference = Math.min(1, 2 * Estimate.survival(df, Math.abs(d) / se));
         }
-        Verdict verdict = pEquivalent < alpha ? Verdict.AGREES
-            : pNotEquivalent < alpha ? Verdict.DISAGREES : Verdict.INCONCLUSIVE;
+        Verdict verdict = verdict(pEquivalent, pNotEquivalent, alpha);
         OptionalLong more = OptionalLong.empty();
         double margin = Math.abs(h - Math.abs(d));
-        if (verdict == Verdict.INCONCLUSIVE && margin > 0) {
+        if (verdict == Verdict.INCONCLUSIVE && margin > 0 && se > 0) {
             double z = Estimate.quantile(Double.POSITIVE_INFINITY, alpha);
             double ratio = z * se / margin;
             double needed = estimate.replicates() * ratio * ratio;

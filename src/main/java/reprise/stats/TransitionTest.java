@@ -25,7 +25,9 @@ import reprise.game.Player;
  * these states (for example with perception errors, whose private memories make the observed states a
  * hidden Markov chain, or with memory longer than the state).
  *
- * <p>Implementation note: the row sums are formed directly (not with the library's goodness-of-fit
+ * <p>Implementation note: a hypothesised probability outside [0, 1] by rounding alone (at most 1e-14,
+ * as when pooled or grouped cells are summed in floating point) is read as the nearest end of [0, 1];
+ * rows must still sum to 1 within 1e-9. The row sums are formed directly (not with the library's goodness-of-fit
  * tests) because the paper's zero-cell rule needs cells with p0_ij = 0 left out per row, and rows with a
  * single possible successor contribute nothing.
  *
@@ -44,6 +46,9 @@ public final class TransitionTest {
         /** The likelihood-ratio G^2. */
         LIKELIHOOD_RATIO
     }
+
+    /** How far outside [0, 1] a hypothesised probability may lie by rounding alone (about 45 ulps of 1). */
+    static final double ROUNDING = 1e-14;
 
     private final Form form;
 
@@ -89,8 +94,7 @@ public final class TransitionTest {
      * @return statistic, degrees of freedom sum_i (d_i - 1), p-value, and a note
      */
     public TestResult test(long[][] counts, double[][] hypothesis) {
-        validate(counts, hypothesis);
-        return rectangular(counts, hypothesis);
+        return rectangular(counts, validated(counts, hypothesis));
     }
 
     private TestResult rectangular(long[][] counts, double[][] hypothesis) {
@@ -121,10 +125,11 @@ public final class TransitionTest {
      * @return m values (0 for a row without transitions, +infinity for an impossible row)
      */
     public double[] rowStatistics(long[][] counts, double[][] hypothesis) {
-        int m = validate(counts, hypothesis);
+        double[][] p0 = validated(counts, hypothesis);
+        int m = p0.length;
         double[] out = new double[m];
         for (int i = 0; i < m; i++) {
-            out[i] = row(counts[i], hypothesis[i], i);
+            out[i] = row(counts[i], p0[i], i);
         }
         return out;
     }
@@ -141,7 +146,8 @@ public final class TransitionTest {
      * @return the test on the 4 x 2 grouped table
      */
     public TestResult testMove(long[][] counts, double[][] hypothesis, Player player) {
-        if (validate(counts, hypothesis) != 4) {
+        double[][] p0 = validated(counts, hypothesis);
+        if (p0.length != 4) {
             throw new IllegalArgumentException("a move test needs 4 x 4 state transitions: " + counts.length);
         }
         long[][] c = new long[4][2];
@@ -151,8 +157,9 @@ public final class TransitionTest {
                 boolean cooperates = player == Player.X ? j < 2 : (j & 1) == 0;
                 int k = cooperates ? 0 : 1;
                 c[i][k] += counts[i][j];
-                p[i][k] += hypothesis[i][j];
+                p[i][k] += p0[i][j];
             }
+            p[i] = roundingClamped(p[i]);
         }
         return rectangular(c, p);
     }
@@ -211,20 +218,42 @@ public final class TransitionTest {
         return "impossible";
     }
 
-    private static int validate(long[][] counts, double[][] hypothesis) {
+    /**
+     * Entries above 1 by no more than {@link #ROUNDING} (sums of probabilities formed in floating point,
+     * such as 0.9975 + 0.0025 = 1.0000000000000002) are read as 1, and entries below 0 by no more than it
+     * as 0; anything further out is an error.
+     */
+    private static double[] roundingClamped(double[] p) {
+        double[] c = p.clone();
+        for (int j = 0; j < c.length; j++) {
+            if (c[j] > 1 && c[j] <= 1 + ROUNDING) {
+                c[j] = 1;
+            } else if (c[j] < 0 && c[j] >= -ROUNDING) {
+                c[j] = 0;
+            }
+        }
+        return c;
+    }
+
+    private static double[][] validated(long[][] counts, double[][] hypothesis) {
         if (counts == null || counts.length < 2) {
             throw new IllegalArgumentException("transition counts must be a square matrix with at least 2 rows: "
                 + (counts == null ? "none" : counts.length));
         }
         int m = counts.length;
+        double[][] p0 = new double[m][];
         if (hypothesis == null || hypothesis.length != m) {
             throw new IllegalArgumentException("hypothesised transition matrix must have " + m + " rows: "
                 + (hypothesis == null ? "none" : hypothesis.length));
         }
         for (int i = 0; i < m; i++) {
             Checks.counts("transition counts row " + i, counts[i], m);
-            Checks.distribution("hypothesised transition matrix row " + i, hypothesis[i], m);
+            if (hypothesis[i] == null) {
+                throw new IllegalArgumentException("hypothesised transition matrix row " + i + " must have " + m
+                    + " entries: none");
+            }
+            p0[i] = Checks.distribution("hypothesised transition matrix row " + i, roundingClamped(hypothesis[i]), m);
         }
-        return m;
+        return p0;
     }
 }

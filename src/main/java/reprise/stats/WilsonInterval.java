@@ -13,8 +13,9 @@ import org.apache.commons.statistics.distribution.NormalDistribution;
  * <p>With continuity correction (Newcombe 1998, method 4):
  * L = (2np + z^2 - 1 - z sqrt(z^2 - 2 - 1/n + 4p(n(1-p) + 1))) / (2(n + z^2)),
  * U = (2np + z^2 + 1 + z sqrt(z^2 + 2 - 1/n + 4p(n(1-p) - 1))) / (2(n + z^2)),
- * with L = 0 when x = 0 and U = 1 when x = n (in both forms, where the formulas give these values
- * exactly). Bounds are clipped to [0, 1].
+ * with L = 0 when x = 0 and U = 1 when x = n (for both forms: in exact arithmetic the plain form has these
+ * ends too, and setting them avoids a lower end of 1e-17 above an estimate of 0). Bounds are clipped to
+ * [0, 1] and to lower &le; x/n &le; upper.
  *
  * <p>References:
  * <ul>
@@ -94,6 +95,6 @@ public final class WilsonInterval {
             upper = successes == trials ? 1
                 : (2 * n * p + z2 + 1 + z * Math.sqrt(z2 + 2 - 1 / n + 4 * p * (n * (1 - p) - 1))) / d;
         }
-        return new Interval(p, Math.max(0, lower), Math.min(1, upper), confidence);
+        return new Interval(p, Math.min(p, Math.max(0, lower)), Math.max(p, Math.min(1, upper)), confidence);
     }
 }

@@ -15,9 +15,15 @@
  *   <li>Means with intervals over games: {@link reprise.stats.ReplicateInference} (fixed length: the
  *       t-interval of per-game averages; random length: the ratio estimator sum N / sum L);
  *       proportions from independent trials: {@link reprise.stats.WilsonInterval}.</li>
+ *   <li>Few games carry the variation (rare states, low error rates, short or few games): diagnose with
+ *       {@link reprise.stats.Regime}; intervals that stay in range and never collapse with
+ *       {@link reprise.stats.BoundedMeanInterval}; whether an asymptotic p-value holds at a corrected
+ *       threshold with {@link reprise.stats.TailTrust}, and if not a Monte Carlo p-value under the exact
+ *       model with {@link reprise.stats.MonteCarloPValue} and {@link reprise.stats.ExactModelReference}.</li>
  *   <li>Mean state counts against exact predictions: {@link reprise.stats.WaldTest} (exact covariance) or
  *       {@link reprise.stats.HotellingTest} (sample covariance).</li>
- *   <li>Transition counts against a transition matrix: {@link reprise.stats.TransitionTest}.</li>
+ *   <li>Transition counts against a transition matrix: {@link reprise.stats.TransitionTest}, after pooling
+ *       sparse cells with {@link reprise.stats.SparseCells}.</li>
  *   <li>The state at round t across games: {@link reprise.stats.SnapshotTest}.</li>
  *   <li>The pooled-rounds chi-square, as a warning only: {@link reprise.stats.PooledRoundsIllustration}.</li>
  *   <li>One long chain: {@link reprise.stats.BatchMeans}.</li>
