@@ -195,6 +195,34 @@ public final class Strategies {
         return new MemoryStrategy(spec, 1, m.table(), m.initial());
     }
 
+    /**
+     * The zero-determinant parameters behind a spec, or null when the spec is not one of the three
+     * zero-determinant forms.
+     *
+     * @param spec the spec
+     * @param game the stage game
+     * @param player whose strategy it is
+     * @return the parameters, or null
+     */
+    static ZeroDeterminant.Parameters zeroDeterminantParameters(String spec, StageGame game, Player player) {
+        String lower = spec.trim().toLowerCase(Locale.ROOT);
+        int colon = lower.indexOf(':');
+        String head = colon < 0 ? lower : lower.substring(0, colon).trim();
+        String family = switch (head) {
+            case "extort" -> "extortionate";
+            case "generous" -> "generous";
+            case "equalizer" -> "equalizer";
+            default -> null;
+        };
+        if (family == null || lower.indexOf('@') >= 0) {
+            return null;
+        }
+        Map<String, Double> kv = keyValues(spec, colon < 0 ? "" : lower.substring(colon + 1));
+        double level = required(kv, family.equals("equalizer") ? "score" : "chi", spec);
+        return ZeroDeterminant.parameters(family, game, player, level, kv.getOrDefault("phi", Double.NaN),
+            kv.getOrDefault("delta", 1.0), kv.getOrDefault("p0", 1.0));
+    }
+
     private static double required(Map<String, Double> kv, String key, String spec) {
         Double v = kv.get(key);
         if (v == null) {
