@@ -2,8 +2,6 @@ package reprise.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -110,7 +108,7 @@ final class SweepCommand implements Callable<Integer> {
             PrintWriter cliOut = spec.commandLine().getOut();
             SweepCsv.write(t, cliOut, threads);
         } else {
-            try (Writer w = Files.newBufferedWriter(out, StandardCharsets.UTF_8)) {
+            try (java.io.OutputStream w = new java.io.BufferedOutputStream(Files.newOutputStream(out), 1 << 16)) {
                 SweepCsv.write(t, w, threads);
             }
         }

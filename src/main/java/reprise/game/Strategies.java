@@ -11,7 +11,10 @@ import java.util.Map;
  * Parses strategy specs.
  *
  * <p>Forms (numbers may be decimals or fractions such as {@code 1/3}; {@code @p0} sets the first-round
- * cooperation probability, default 1):
+ * cooperation probability, default 1, except 0 for {@code alld} and {@code stft} and 1/2 for
+ * {@code random}; the zero-determinant forms refuse {@code @p0}: extortionate strategies always open
+ * with D and generous ones with C, as the discounted zero-determinant condition requires, and an
+ * equalizer takes {@code p0=} inside its spec, default 1):
  * <ul>
  *   <li>{@code reactive:p,q[@p0]}: cooperate with probability p after the co-player's C, q after its D;</li>
  *   <li>{@code memory1:pCC,pCD,pDC,pDD[@p0]}: memory-one, own move first in each state;</li>

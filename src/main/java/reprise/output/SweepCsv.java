@@ -1,8 +1,10 @@
 package reprise.output;
 
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.UncheckedIOException;
 import java.io.Writer;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ExecutionException;
@@ -62,6 +64,32 @@ public final class SweepCsv {
      * @throws UncheckedIOException when writing fails
      */
     public static void write(SweepTable t, Writer out, int threads) {
+        write(t, threads, text -> out.write(text), out::flush);
+    }
+
+    /**
+     * Writes the table as ASCII bytes (faster than through a {@link Writer} for large sweeps).
+     *
+     * @param t the table
+     * @param out where to write (not closed)
+     * @param threads formatting threads, at least 1
+     * @throws UncheckedIOException when writing fails
+     */
+    public static void write(SweepTable t, OutputStream out, int threads) {
+        write(t, threads, text -> out.write(text.getBytes(StandardCharsets.ISO_8859_1)), out::flush);
+    }
+
+    /** A sink of text blocks. */
+    private interface Sink {
+        void accept(String text) throws IOException;
+    }
+
+    /** A flush action. */
+    private interface Flush {
+        void run() throws IOException;
+    }
+
+    private static void write(SweepTable t, int threads, Sink out, Flush flush) {
         SweepDefinition d = t.definition();
         List<String> co = t.coPlayers().stream().map(SweepCsv::quote).toList();
         List<String> lengths = new ArrayList<>();
@@ -76,25 +104,24 @@ public final class SweepCsv {
             return th;
         }) : null;
         try {
-            out.write(String.join(",", header(d)));
-            out.write('\n');
+            out.accept(String.join(",", header(d)) + "\n");
             List<Future<String>> pending = new ArrayList<>();
             for (int b = 0; b < blocks; b++) {
                 int from = b * BLOCK;
                 int to = Math.min(rows, from + BLOCK);
                 if (pool == null) {
-                    out.write(block(t, co, lengths, from, to));
+                    out.accept(block(t, co, lengths, from, to));
                 } else {
                     pending.add(pool.submit(() -> block(t, co, lengths, from, to)));
                     if (pending.size() >= 2 * threads) {
-                        out.write(pending.remove(0).get());
+                        out.accept(pending.remove(0).get());
                     }
                 }
             }
             for (Future<String> f : pending) {
-                out.write(f.get());
+                out.accept(f.get());
             }
-            out.flush();
+            flush.run();
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         } catch (InterruptedException e) {
