@@ -10,8 +10,7 @@ package reprise.output;
  * double always carries exactly through a decimal round trip (DBL_DIG = 15), so the printed number reads
  * back within a relative 1e-14 of the value. Trailing zeros are dropped; plain notation is used for decimal
  * exponents -5 to 14, scientific ({@code 1.5E-7}) otherwise; -0 prints as 0. Magnitudes outside
- * [1e-20, 1e20) go through {@link java.math.BigDecimal} (exact, slow, and written as {@code 1E+25}). About ten times faster than
- * {@link Double#toString(double)} on JDK 17, which finds the shortest exact round trip.
+ * [1e-20, 1e20) go through {@link java.math.BigDecimal} (exact, slow, and written as {@code 1E+25}).
  *
  * <p>References:
  * IEEE 754-2008 (2008). IEEE Standard for Floating-Point Arithmetic, section 5.12.2 (decimal digits
@@ -57,24 +56,29 @@ final class Decimal15 {
             sb.append('-');
             v = -v;
         }
-        int e = (int) Math.floor(Math.log10(v));
+        // floor(log10 v) is floor(e2 log10 2) or one more, e2 the binary exponent
+        int e = (int) Math.floor(Math.getExponent(v) * 0.30102999566398120);
         long m = Math.round(scale(v, 14 - e));
-        if (m >= HIGH) {
+        while (m >= HIGH) {
             e++;
             m = Math.round(scale(v, 14 - e));
-        } else if (m < LOW) {
+        }
+        while (m < LOW) {
             e--;
             m = Math.round(scale(v, 14 - e));
         }
-        if (m >= HIGH) {
-            // rounding carried into a 16th digit (for example 9.999999999999999 -> 10.0000000000000)
-            e++;
-            m /= 10;
-        }
         char[] d = new char[15];
-        for (int i = 14; i >= 0; i--) {
-            d[i] = (char) ('0' + m % 10);
-            m /= 10;
+        int hi = (int) (m / 100_000_000L);
+        int lo = (int) (m - hi * 100_000_000L);
+        for (int i = 14; i >= 7; i--) {
+            int q = lo / 10;
+            d[i] = (char) ('0' + lo - 10 * q);
+            lo = q;
+        }
+        for (int i = 6; i >= 0; i--) {
+            int q = hi / 10;
+            d[i] = (char) ('0' + hi - 10 * q);
+            hi = q;
         }
         int nd = 15;
         while (nd > 1 && d[nd - 1] == '0') {
