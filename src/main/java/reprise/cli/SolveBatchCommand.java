@@ -118,9 +118,7 @@ final class SolveBatchCommand implements Callable<Integer> {
                 } else {
                     ObjectNode o = Json.object();
                     o.put("line", line);
-                    o.setAll(SolveCommand.json(row.prediction, row.match, row.horizon));
-                    o.set("x_strategy", SolveCommand.strategyNode(row.x));
-                    o.set("y_strategy", SolveCommand.strategyNode(row.y));
+                    o.setAll(SolveCommand.fullJson(row.prediction, row.match, row.horizon, row.x, row.y));
                     out.println(COMPACT.writeValueAsString(o));
                 }
             }

@@ -44,14 +44,16 @@ final class SolveCommand implements Callable<Integer> {
         StrategyDescription dy = StrategyDescription.of(options.y, match.game(), Player.Y);
         PrintWriter out = spec.commandLine().getOut();
         if (json) {
-            ObjectNode o = json(p, match, horizon);
-            o.set("x_strategy", strategyNode(dx));
-            o.set("y_strategy", strategyNode(dy));
-            out.println(Json.write(o));
+            out.println(Json.write(fullJson(p, match, horizon, dx, dy)));
         } else {
             table(out, p, match);
             out.println("X resolved: " + dx.describe());
             out.println("Y resolved: " + dy.describe());
+            Payoffs closed = closedForm(match, p);
+            if (closed != null) {
+                out.printf(Locale.ROOT, "closed form (Press & Dyson determinant): payoff X %s, payoff Y %s%n",
+                    fmt(closed.x()), fmt(closed.y()));
+            }
         }
         return Main.OK;
     }
@@ -107,6 +109,39 @@ final class SolveCommand implements Callable<Integer> {
         o.set("asymptotic_covariance", p.asymptoticCovariance() == null ? null : Json.matrix(p.asymptoticCovariance()));
         o.set("payoff_asymptotic_covariance", p.payoffCovariance() == null ? null : Json.matrix(p.payoffCovariance()));
         return o;
+    }
+
+    /**
+     * Everything {@code solve --json} prints: the prediction, both resolved strategies and the closed form.
+     */
+    static ObjectNode fullJson(Prediction p, Match match, Horizon horizon, StrategyDescription dx,
+        StrategyDescription dy) {
+        ObjectNode o = json(p, match, horizon);
+        o.set("x_strategy", strategyNode(dx));
+        o.set("y_strategy", strategyNode(dy));
+        Payoffs closed = closedForm(match, p);
+        if (closed == null) {
+            o.putNull("closed_form_payoffs");
+        } else {
+            o.set("closed_form_payoffs", payoffs(closed));
+        }
+        return o;
+    }
+
+    /**
+     * The long-run payoffs by Press &amp; Dyson's determinant formula, an independent closed form beside the
+     * chain's answer, for two memory-one players with a unique stationary distribution; null otherwise.
+     */
+    static Payoffs closedForm(Match match, Prediction p) {
+        if (p.stationary() == null || !(match.x() instanceof reprise.game.MemoryStrategy x)
+            || !(match.y() instanceof reprise.game.MemoryStrategy y) || x.memory() != 1 || y.memory() != 1) {
+            return null;
+        }
+        try {
+            return reprise.chain.ClosedForms.pressDyson(match.game(), x.table(), y.table(), match.noise());
+        } catch (reprise.chain.NoPredictionException e) {
+            return null;
+        }
     }
 
     /**
