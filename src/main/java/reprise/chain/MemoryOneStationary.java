@@ -48,7 +48,17 @@ public final class MemoryOneStationary {
      */
     public boolean solve(double[] p, double[] q, double executionX, double executionY, double perceptionX,
         double perceptionY) {
-        double[] m = built;
+        transition(built, p, q, executionX, executionY, perceptionX, perceptionY);
+        System.arraycopy(built, 0, a, 0, 16);
+        return gth(a, pi) || slowPath();
+    }
+
+    /**
+     * Writes the 4 x 4 transition matrix of two memory-one players, row-major, states CC, CD, DC, DD from
+     * X's view (see the class description).
+     */
+    static void transition(double[] m, double[] p, double[] q, double executionX, double executionY,
+        double perceptionX, double perceptionY) {
         double kx = 1 - perceptionX;
         double ky = 1 - perceptionY;
         double gx = 1 - executionX;
@@ -71,12 +81,14 @@ public final class MemoryOneStationary {
             m[r + 2] = xd * yc;
             m[r + 3] = xd * yd;
         }
-        System.arraycopy(m, 0, a, 0, 16);
-        return gth() || slowPath();
     }
 
-    private boolean gth() {
-        double[] m = a;
+    /**
+     * GTH on a 4 x 4 row-major stochastic matrix (overwritten); writes the stationary distribution to pi.
+     *
+     * @return false, leaving pi untouched, when a pivot vanishes
+     */
+    static boolean gth(double[] m, double[] pi) {
         for (int n = 3; n > 0; n--) {
             int rn = 4 * n;
             double s = 0;

@@ -18,7 +18,7 @@ import picocli.CommandLine.IVersionProvider;
     versionProvider = Main.Version.class,
     description = {"Checks exact Markov-chain results for repeated 2x2 games against finite, noisy simulations.",
         "Data goes to stdout, messages to stderr."},
-    subcommands = {CheckCommand.class, MergeCommand.class, SlurmScriptCommand.class, SolveCommand.class,
+    subcommands = {CheckCommand.class, MergeCommand.class, SlurmScriptCommand.class, SolveCommand.class, SolveBatchCommand.class, SweepCommand.class, PayoffPlaneCommand.class,
         SimulateCommand.class, PlanCommand.class,
         CalibrateCommand.class, PlotCommand.class,
         CommandLine.HelpCommand.class},

@@ -13,7 +13,8 @@ final class MatchOptions {
 
     @Option(names = "--x", required = true, paramLabel = "SPEC",
         description = "Strategy of player X, e.g. tft, gtft, wsls, reactive:0.9,0.2, memory1:1,0,0,1@1, "
-            + "extort:chi=3,phi=0.05.")
+            + "extort:chi=3,phi=0.05. First move C unless @P0 says otherwise (alld and stft: D; extort: always D; "
+            + "generous: always C).")
     String x;
 
     @Option(names = "--y", required = true, paramLabel = "SPEC", description = "Strategy of player Y (in its own view).")

@@ -14,6 +14,9 @@ import reprise.chain.Payoffs;
 import reprise.chain.Prediction;
 import reprise.game.Horizon;
 import reprise.game.Match;
+import reprise.game.Player;
+import reprise.game.StrategyDescription;
+import reprise.game.ZeroDeterminant;
 
 /** {@code solve}: the exact Markov-chain predictions for one match. */
 @Command(name = "solve", mixinStandardHelpOptions = true,
@@ -37,11 +40,20 @@ final class SolveCommand implements Callable<Integer> {
         Match match = options.match();
         Horizon horizon = options.horizonOrNull();
         Prediction p = Prediction.of(match, horizon);
+        StrategyDescription dx = StrategyDescription.of(options.x, match.game(), Player.X);
+        StrategyDescription dy = StrategyDescription.of(options.y, match.game(), Player.Y);
         PrintWriter out = spec.commandLine().getOut();
         if (json) {
-            out.println(Json.write(json(p, match, horizon)));
+            out.println(Json.write(fullJson(p, match, horizon, dx, dy)));
         } else {
             table(out, p, match);
+            out.println("X resolved: " + dx.describe());
+            out.println("Y resolved: " + dy.describe());
+            Payoffs closed = closedForm(match, p);
+            if (closed != null) {
+                out.printf(Locale.ROOT, "closed form (Press & Dyson determinant): payoff X %s, payoff Y %s%n",
+                    fmt(closed.x()), fmt(closed.y()));
+            }
         }
         return Main.OK;
     }
@@ -96,6 +108,67 @@ final class SolveCommand implements Callable<Integer> {
         }
         o.set("asymptotic_covariance", p.asymptoticCovariance() == null ? null : Json.matrix(p.asymptoticCovariance()));
         o.set("payoff_asymptotic_covariance", p.payoffCovariance() == null ? null : Json.matrix(p.payoffCovariance()));
+        return o;
+    }
+
+    /**
+     * Everything {@code solve --json} prints: the prediction, both resolved strategies and the closed form.
+     */
+    static ObjectNode fullJson(Prediction p, Match match, Horizon horizon, StrategyDescription dx,
+        StrategyDescription dy) {
+        ObjectNode o = json(p, match, horizon);
+        o.set("x_strategy", strategyNode(dx));
+        o.set("y_strategy", strategyNode(dy));
+        Payoffs closed = closedForm(match, p);
+        if (closed == null) {
+            o.putNull("closed_form_payoffs");
+        } else {
+            o.set("closed_form_payoffs", payoffs(closed));
+        }
+        return o;
+    }
+
+    /**
+     * The long-run payoffs by Press &amp; Dyson's determinant formula, an independent closed form beside the
+     * chain's answer, for two memory-one players with a unique stationary distribution; null otherwise.
+     */
+    static Payoffs closedForm(Match match, Prediction p) {
+        if (p.stationary() == null || !(match.x() instanceof reprise.game.MemoryStrategy x)
+            || !(match.y() instanceof reprise.game.MemoryStrategy y) || x.memory() != 1 || y.memory() != 1) {
+            return null;
+        }
+        try {
+            return reprise.chain.ClosedForms.pressDyson(match.game(), x.table(), y.table(), match.noise());
+        } catch (reprise.chain.NoPredictionException e) {
+            return null;
+        }
+    }
+
+    /**
+     * The resolved strategy as JSON: label, kind, memory, table, first_move and zero_determinant (null, or
+     * {family, chi, score, phi, phi_low, phi_high, delta}).
+     */
+    static ObjectNode strategyNode(StrategyDescription d) {
+        ObjectNode o = Json.object();
+        o.put("label", d.label());
+        o.put("kind", d.kind());
+        o.put("memory", d.memory());
+        o.set("table", Json.array(d.table()));
+        Json.put(o, "first_move", d.firstMove());
+        ZeroDeterminant.Parameters z = d.zeroDeterminant();
+        if (z == null) {
+            o.putNull("zero_determinant");
+        } else {
+            ObjectNode zo = Json.object();
+            zo.put("family", z.family());
+            Json.put(zo, "chi", z.chi());
+            Json.put(zo, "score", z.score());
+            Json.put(zo, "phi", z.phi());
+            Json.put(zo, "phi_low", z.phiLow());
+            Json.put(zo, "phi_high", z.phiHigh());
+            Json.put(zo, "delta", z.delta());
+            o.set("zero_determinant", zo);
+        }
         return o;
     }
 

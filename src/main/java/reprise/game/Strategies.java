@@ -11,7 +11,10 @@ import java.util.Map;
  * Parses strategy specs.
  *
  * <p>Forms (numbers may be decimals or fractions such as {@code 1/3}; {@code @p0} sets the first-round
- * cooperation probability, default 1):
+ * cooperation probability, default 1, except 0 for {@code alld} and {@code stft} and 1/2 for
+ * {@code random}; the zero-determinant forms refuse {@code @p0}: extortionate strategies always open
+ * with D and generous ones with C, as the discounted zero-determinant condition requires, and an
+ * equalizer takes {@code p0=} inside its spec, default 1):
  * <ul>
  *   <li>{@code reactive:p,q[@p0]}: cooperate with probability p after the co-player's C, q after its D;</li>
  *   <li>{@code memory1:pCC,pCD,pDC,pDD[@p0]}: memory-one, own move first in each state;</li>
@@ -193,6 +196,34 @@ public final class Strategies {
                 break;
         }
         return new MemoryStrategy(spec, 1, m.table(), m.initial());
+    }
+
+    /**
+     * The zero-determinant parameters behind a spec, or null when the spec is not one of the three
+     * zero-determinant forms.
+     *
+     * @param spec the spec
+     * @param game the stage game
+     * @param player whose strategy it is
+     * @return the parameters, or null
+     */
+    static ZeroDeterminant.Parameters zeroDeterminantParameters(String spec, StageGame game, Player player) {
+        String lower = spec.trim().toLowerCase(Locale.ROOT);
+        int colon = lower.indexOf(':');
+        String head = colon < 0 ? lower : lower.substring(0, colon).trim();
+        String family = switch (head) {
+            case "extort" -> "extortionate";
+            case "generous" -> "generous";
+            case "equalizer" -> "equalizer";
+            default -> null;
+        };
+        if (family == null || lower.indexOf('@') >= 0) {
+            return null;
+        }
+        Map<String, Double> kv = keyValues(spec, colon < 0 ? "" : lower.substring(colon + 1));
+        double level = required(kv, family.equals("equalizer") ? "score" : "chi", spec);
+        return ZeroDeterminant.parameters(family, game, player, level, kv.getOrDefault("phi", Double.NaN),
+            kv.getOrDefault("delta", 1.0), kv.getOrDefault("p0", 1.0));
     }
 
     private static double required(Map<String, Double> kv, String key, String spec) {

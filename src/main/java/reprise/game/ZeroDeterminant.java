@@ -41,6 +41,79 @@ public final class ZeroDeterminant {
     }
 
     /**
+     * The parameters a zero-determinant strategy was resolved with, for showing to the user.
+     *
+     * @param family "extortionate", "generous" or "equalizer"
+     * @param chi the extortion or generosity factor, NaN for the equalizer
+     * @param score the co-player payoff an equalizer enforces, NaN for the other two
+     * @param phi the scale actually used (the default when none was given)
+     * @param phiLow the smallest allowed phi (phi must be greater than this when it is 0)
+     * @param phiHigh the largest allowed phi
+     * @param delta the continuation probability the strategy was built for (1: infinitely repeated)
+     * @param firstMove the first-round cooperation probability p0
+     */
+    public record Parameters(String family, double chi, double score, double phi, double phiLow, double phiHigh,
+        double delta, double firstMove) {
+    }
+
+    /**
+     * Resolves the parameters of a zero-determinant strategy without building it: the phi used and the
+     * allowed phi interval. Fails exactly when the matching constructor fails, with the same message.
+     *
+     * @param family "extortionate", "generous" or "equalizer"
+     * @param game the stage game
+     * @param player whose strategy this is
+     * @param level chi for extortionate and generous strategies, the score for an equalizer
+     * @param phi the scale, NaN for the default
+     * @param delta the continuation probability in (0, 1]
+     * @param p0 the equalizer's first-round cooperation probability (ignored by the other two families)
+     * @return the parameters
+     */
+    public static Parameters parameters(String family, StageGame game, Player player, double level, double phi,
+        double delta, double p0) {
+        checkDelta(delta);
+        double[] own = game.ownView(player);
+        double[] co = game.coPlayerInView(player);
+        double[] bracket = new double[4];
+        double first;
+        switch (family) {
+            case "extortionate" -> {
+                checkChi(level);
+                for (int i = 0; i < 4; i++) {
+                    bracket[i] = (own[i] - own[3]) - level * (co[i] - co[3]);
+                }
+                first = 0;
+            }
+            case "generous" -> {
+                checkChi(level);
+                for (int i = 0; i < 4; i++) {
+                    bracket[i] = (own[i] - own[0]) - level * (co[i] - co[0]);
+                }
+                first = 1;
+            }
+            case "equalizer" -> {
+                Checks.finite("equalizer score", level);
+                Checks.probability("equalizer p0", p0);
+                for (int i = 0; i < 4; i++) {
+                    bracket[i] = level - co[i];
+                }
+                first = p0;
+            }
+            default -> throw new IllegalArgumentException("unknown zero-determinant family: " + family);
+        }
+        String what = family.equals("equalizer")
+            ? String.format(Locale.ROOT, "equalizer with score=%s%s%s", Numbers.format(level), deltaText(delta),
+                delta < 1 ? ", p0=" + Numbers.format(p0) : "")
+            : String.format(Locale.ROOT, "%s strategy with chi=%s%s", family, Numbers.format(level),
+                deltaText(delta));
+        double[] range = phiRange(bracket, delta, first);
+        double usePhi = checkedPhi(what, range, phi, delta);
+        boolean eq = family.equals("equalizer");
+        return new Parameters(family, eq ? Double.NaN : level, eq ? level : Double.NaN, usePhi, range[0], range[1],
+            delta, first);
+    }
+
+    /**
      * An extortionate strategy: the player's surplus over mutual defection is chi times the co-player's.
      *
      * @param game the stage game
@@ -144,7 +217,19 @@ public final class ZeroDeterminant {
 
     private static MemoryStrategy build(String label, String what, double[] bracket, double phi, double delta,
         double p0) {
-        double[] range = phiRange(bracket, delta, p0);
+        double usePhi = checkedPhi(what, phiRange(bracket, delta, p0), phi, delta);
+        double[] p = new double[4];
+        for (int i = 0; i < 4; i++) {
+            double v = ((i < 2 ? 1 : 0) - (1 - delta) * p0 + usePhi * bracket[i]) / delta;
+            // exact 0 and 1 come out of the formula up to rounding; snap them, so that a deterministic
+            // entry stays deterministic (otherwise a 1e-17 transition makes a reducible chain look ergodic)
+            p[i] = v < SLACK ? 0 : v > 1 - SLACK ? 1 : v;
+        }
+        return MemoryStrategy.memoryOne(label, p, p0);
+    }
+
+    /** The phi to use: the given one checked against the range, or the default (see the constructors). */
+    private static double checkedPhi(String what, double[] range, double phi, double delta) {
         double lo = range[0];
         double hi = range[1];
         if (!(hi >= lo - SLACK) || !(hi > SLACK)) {
@@ -161,14 +246,7 @@ public final class ZeroDeterminant {
             throw new IllegalArgumentException(String.format(Locale.ROOT, "phi must be in %s%s, %s] for the %s: %s",
                 lo > 0 ? "[" : "(", Numbers.format(lo), Numbers.format(hi), what, Numbers.format(phi)));
         }
-        double[] p = new double[4];
-        for (int i = 0; i < 4; i++) {
-            double v = ((i < 2 ? 1 : 0) - (1 - delta) * p0 + usePhi * bracket[i]) / delta;
-            // exact 0 and 1 come out of the formula up to rounding; snap them, so that a deterministic
-            // entry stays deterministic (otherwise a 1e-17 transition makes a reducible chain look ergodic)
-            p[i] = v < SLACK ? 0 : v > 1 - SLACK ? 1 : v;
-        }
-        return MemoryStrategy.memoryOne(label, p, p0);
+        return usePhi;
     }
 
     private static String label(String kind, String key, double value, double phi, double delta, double p0) {
