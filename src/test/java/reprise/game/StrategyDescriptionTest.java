@@ -84,7 +84,7 @@ class StrategyDescriptionTest {
         assertEquals(2, t.memory());
         assertEquals(16, t.table().length);
         assertNull(t.zeroDeterminant());
-        StrategyDescription a = StrategyDescription.of("agent:forgiver,2", PD, Player.X);
+        StrategyDescription a = StrategyDescription.of("agent:runcap,2", PD, Player.X);
         assertEquals("agent", a.kind());
         assertTrue(Double.isNaN(a.firstMove()));
     }
