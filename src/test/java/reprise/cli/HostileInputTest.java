@@ -5,8 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.stream.Stream;
@@ -26,14 +24,8 @@ class HostileInputTest {
     @TempDir
     Path tmp;
 
-    record Run(int code, String out, String err) {
-    }
-
-    static Run run(String... args) {
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        int code = Main.run(args, new PrintWriter(out), new PrintWriter(err));
-        return new Run(code, out.toString(), err.toString());
+    private static UsageErrorTest.Run run(String... args) {
+        return UsageErrorTest.run(args);
     }
 
     static Stream<Arguments> refusals() {
@@ -64,7 +56,7 @@ class HostileInputTest {
     @ParameterizedTest
     @MethodSource("refusals")
     void refusedInOneLineBeforeAnyWork(String[] args, String start) {
-        Run r = run(args);
+        UsageErrorTest.Run r = run(args);
         assertEquals(Main.BAD_INPUT, r.code(), r.err());
         assertEquals("", r.out());
         assertEquals(1, r.err().strip().lines().count(), r.err());
@@ -74,7 +66,7 @@ class HostileInputTest {
     @Test
     void aScriptPathBelowARegularFileIsBadInputNotACrash() throws IOException {
         Path file = Files.writeString(tmp.resolve("afile"), "x");
-        Run r = run("slurm-script", "experiments/quota-demo.yaml", "--jar", "reprise.jar", "--tasks", "4",
+        UsageErrorTest.Run r = run("slurm-script", "experiments/quota-demo.yaml", "--jar", "reprise.jar", "--tasks", "4",
             "--script", file.resolve("run.sh").toString());
         assertEquals(Main.BAD_INPUT, r.code(), r.err());
         assertEquals("reprise slurm-script: cannot write into " + file + ": " + file + " is a file, not a folder",
@@ -85,7 +77,7 @@ class HostileInputTest {
     @Test
     void manyTasksArePlannedInLinearTime() {
         // 4e6 tasks of the demo's units: the old planner scanned every task for every unit and task (hours)
-        Run r = run("slurm-script", "experiments/quota-demo.yaml", "--jar", "reprise.jar", "--tasks", "4000000");
+        UsageErrorTest.Run r = run("slurm-script", "experiments/quota-demo.yaml", "--jar", "reprise.jar", "--tasks", "4000000");
         assertEquals(Main.OK, r.code(), r.err());
         assertTrue(r.out().contains("4000000 tasks"), r.out());
         assertFalse(r.out().isEmpty());
