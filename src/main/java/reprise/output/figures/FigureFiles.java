@@ -30,6 +30,8 @@ import org.knowm.xchart.internal.chartpart.Chart;
  * PDF and EPS pages in points.
  */
 final class FigureFiles {
+    private static final double MILLIMETRES_PER_POINT = 25.4 / 72;
+
     private FigureFiles() {
     }
 
@@ -72,7 +74,12 @@ final class FigureFiles {
             return png(chart, style.dpi());
         }
         TextCatalog catalog = new TextCatalog().open();
-        TextKeepingGraphics g = new TextKeepingGraphics(catalog);
+        TextKeepingGraphics g = new TextKeepingGraphics(catalog, format == FigureFormat.SVG ? null
+            : StandardCharsets.ISO_8859_1);
+        // VectorGraphics2D takes PDF and EPS page sizes in millimetres and scales user units as
+        // millimetres; the chart is laid out in points, so it is drawn scaled by 25.4 / 72
+        double unit = format == FigureFormat.SVG ? 1 : MILLIMETRES_PER_POINT;
+        g.scale(unit, unit);
         try {
             chart.paint(g, chart.getWidth(), chart.getHeight());
         } finally {
@@ -84,7 +91,8 @@ final class FigureFiles {
             default -> new EPSProcessor();
         };
         ByteArrayOutputStream out = new ByteArrayOutputStream();
-        processor.getDocument(g.getCommands(), new PageSize(0, 0, chart.getWidth(), chart.getHeight())).writeTo(out);
+        processor.getDocument(g.getCommands(), new PageSize(0, 0, chart.getWidth() * unit, chart.getHeight() * unit))
+            .writeTo(out);
         byte[] bytes = out.toByteArray();
         return format == FigureFormat.SVG ? svgInPrintUnits(bytes, style) : bytes;
     }

@@ -29,9 +29,17 @@ final class TextKeepingGraphics extends VectorGraphics2D {
     private static final Map<Font, Font> PHYSICAL = new ConcurrentHashMap<>();
 
     private final TextCatalog catalog;
+    private final java.nio.charset.Charset encodable;
 
-    TextKeepingGraphics(TextCatalog catalog) {
+    /**
+     * @param catalog the strings laid out while painting
+     * @param encodable the characters the output format can write as text (PDF and EPS: the standard
+     *     fonts' Latin-1), or null for any; strings with other characters (the Greek delta, the minus
+     *     sign) stay outlines there
+     */
+    TextKeepingGraphics(TextCatalog catalog, java.nio.charset.Charset encodable) {
         this.catalog = catalog;
+        this.encodable = encodable;
     }
 
     @Override
@@ -42,7 +50,7 @@ final class TextKeepingGraphics extends VectorGraphics2D {
     @Override
     public void fill(Shape s) {
         TextCatalog.Match m = catalog.match(s);
-        if (m == null) {
+        if (m == null || (encodable != null && !encodable.newEncoder().canEncode(m.text()))) {
             super.fill(s);
             return;
         }
