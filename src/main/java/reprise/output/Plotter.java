@@ -70,11 +70,17 @@ public final class Plotter {
             byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
                 .computeIfAbsent(p.group(), k -> new ArrayList<>()).add(p);
         }
-        List<Drawn> out = new ArrayList<>();
         java.util.Set<String> taken = new java.util.HashSet<>();
         Figures shared = sharedColourRange(figures, points);
-        byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> {
-            String base = FileNames.unique(FileNames.readable(figure + "-" + group), taken);
+        List<Job> jobs = new ArrayList<>();
+        byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> jobs.add(new Job(figure, group,
+            FileNames.unique(FileNames.readable(figure + "-" + group), taken), pts))));
+        // figures are independent and Figures is thread-safe: draw them in parallel, keep their order
+        List<Drawn> out = jobs.parallelStream().map(job -> {
+            String figure = job.figure();
+            String group = job.group();
+            String base = job.base();
+            List<Curves.Point> pts = job.points();
             FigureResult r;
             try {
                 r = switch (figure) {
@@ -92,13 +98,15 @@ public final class Plotter {
                 }
                 r = new FigureResult(List.of(), List.of("not drawn: " + ex.getMessage()));
             }
-            if (r != null) {
-                out.add(new Drawn(figure, group, r));
-            }
-        }));
+            return r == null ? null : new Drawn(figure, group, r);
+        }).filter(java.util.Objects::nonNull).toList();
         FigureManifest.write(directory, figures, out.stream()
             .map(d -> new FigureManifest.Entry(d.kind(), d.group(), d.result())).toList());
         return out;
+    }
+
+    /** One figure to draw, named before drawing so that names do not depend on timing. */
+    private record Job(String figure, String group, String base, List<Curves.Point> points) {
     }
 
     /** One colour range for every deviation heatmap, so that pairs can be compared. */

@@ -37,14 +37,4 @@ final class TextFont extends Font {
         }
         return super.getLineMetrics(chars, beginIndex, limit, frc);
     }
-
-    @Override
-    public boolean equals(Object o) {
-        return super.equals(o);
-    }
-
-    @Override
-    public int hashCode() {
-        return super.hashCode();
-    }
 }

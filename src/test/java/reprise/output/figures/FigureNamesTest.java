@@ -94,4 +94,27 @@ class FigureNamesTest {
             assertTrue(s.allMatch(p -> p.equals(file)), "only the final file remains");
         }
     }
+
+    @Test
+    void figuresDrawnInParallelThreadsAreTheSameBytes() throws Exception {
+        Figures f = Figures.withDefaults().withDpi(72);
+        FigureResult sequential = f.convergence(dir.resolve("one"), "c", SampleData.convergence(1));
+        java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(4);
+        try {
+            List<java.util.concurrent.Future<FigureResult>> runs = new java.util.ArrayList<>();
+            for (int t = 0; t < 4; t++) {
+                Path d = dir.resolve("parallel" + t);
+                runs.add(pool.submit(() -> f.convergence(d, "c", SampleData.convergence(1))));
+            }
+            for (java.util.concurrent.Future<FigureResult> run : runs) {
+                List<Path> files = run.get().files();
+                for (int i = 0; i < files.size(); i++) {
+                    org.junit.jupiter.api.Assertions.assertArrayEquals(Files.readAllBytes(sequential.files().get(i)),
+                        Files.readAllBytes(files.get(i)), files.get(i).toString());
+                }
+            }
+        } finally {
+            pool.shutdown();
+        }
+    }
 }
