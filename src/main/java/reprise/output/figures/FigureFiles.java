@@ -53,8 +53,42 @@ final class FigureFiles {
         return baseName;
     }
 
+    /** While a panel figure collects its panels, the charts drawn on this thread go here instead of to files. */
+    private static final ThreadLocal<List<Chart<?, ?>>> CAPTURE = new ThreadLocal<>();
+
+    /**
+     * Runs {@code draw} with every chart it would write collected instead.
+     *
+     * @param draw draws one or more figures
+     * @return the charts, in order
+     */
+    static List<Chart<?, ?>> capture(Runnable draw) {
+        List<Chart<?, ?>> charts = new ArrayList<>();
+        CAPTURE.set(charts);
+        try {
+            draw.run();
+        } finally {
+            CAPTURE.remove();
+        }
+        return charts;
+    }
+
+    /** Something to paint at a size in points. */
+    interface Drawing {
+        int width();
+
+        int height();
+
+        void paint(java.awt.Graphics2D g);
+    }
+
     static List<Path> write(Chart<?, ?> chart, Path directory, String baseName, Set<FigureFormat> formats,
         FigureStyle style) {
+        List<Chart<?, ?>> capture = CAPTURE.get();
+        if (capture != null) {
+            capture.add(chart);
+            return List.of();
+        }
         List<Path> written = new ArrayList<>();
         try {
             Files.createDirectories(directory);
@@ -69,10 +103,65 @@ final class FigureFiles {
         return written;
     }
 
+    static List<Path> write(Drawing drawing, Path directory, String baseName, Set<FigureFormat> formats,
+        FigureStyle style) {
+        List<Path> written = new ArrayList<>();
+        try {
+            Files.createDirectories(directory);
+            for (FigureFormat format : formats) {
+                Path file = directory.resolve(baseName + "." + format.extension());
+                writeAtomically(file, format == FigureFormat.PNG ? png(drawing, style.dpi())
+                    : vector(drawing, format, style));
+                written.add(file);
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException("could not write figure " + baseName + " to " + directory, e);
+        }
+        return written;
+    }
+
+    private static byte[] png(Drawing drawing, int dpi) throws IOException {
+        double scale = dpi / 72.0;
+        java.awt.image.BufferedImage image = new java.awt.image.BufferedImage((int) (drawing.width() * scale),
+            (int) (drawing.height() * scale), java.awt.image.BufferedImage.TYPE_INT_RGB);
+        java.awt.Graphics2D g = image.createGraphics();
+        try {
+            g.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING, java.awt.RenderingHints.VALUE_ANTIALIAS_ON);
+            g.setColor(java.awt.Color.WHITE);
+            g.fillRect(0, 0, image.getWidth(), image.getHeight());
+            g.scale(scale, scale);
+            drawing.paint(g);
+        } finally {
+            g.dispose();
+        }
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        javax.imageio.ImageIO.write(image, "png", out);
+        return out.toByteArray();
+    }
+
     static byte[] encode(Chart<?, ?> chart, FigureFormat format, FigureStyle style) throws IOException {
         if (format == FigureFormat.PNG) {
             return png(chart, style.dpi());
         }
+        return vector(new Drawing() {
+            @Override
+            public int width() {
+                return chart.getWidth();
+            }
+
+            @Override
+            public int height() {
+                return chart.getHeight();
+            }
+
+            @Override
+            public void paint(java.awt.Graphics2D g) {
+                chart.paint(g, chart.getWidth(), chart.getHeight());
+            }
+        }, format, style);
+    }
+
+    private static byte[] vector(Drawing drawing, FigureFormat format, FigureStyle style) throws IOException {
         TextCatalog catalog = new TextCatalog().open();
         TextKeepingGraphics g = new TextKeepingGraphics(catalog, format == FigureFormat.SVG ? null
             : StandardCharsets.ISO_8859_1);
@@ -81,7 +170,7 @@ final class FigureFiles {
         double unit = format == FigureFormat.SVG ? 1 : MILLIMETRES_PER_POINT;
         g.scale(unit, unit);
         try {
-            chart.paint(g, chart.getWidth(), chart.getHeight());
+            drawing.paint(g);
         } finally {
             catalog.close();
         }
@@ -91,7 +180,7 @@ final class FigureFiles {
             default -> new EPSProcessor();
         };
         ByteArrayOutputStream out = new ByteArrayOutputStream();
-        processor.getDocument(g.getCommands(), new PageSize(0, 0, chart.getWidth() * unit, chart.getHeight() * unit))
+        processor.getDocument(g.getCommands(), new PageSize(0, 0, drawing.width() * unit, drawing.height() * unit))
             .writeTo(out);
         byte[] bytes = out.toByteArray();
         return format == FigureFormat.SVG ? svgInPrintUnits(bytes, style) : bytes;

@@ -492,6 +492,80 @@ public final class Figures {
     }
 
     /**
+     * Several figures side by side in one file, each with a panel letter "(a)", "(b)", ... at its top
+     * left, for example the same figure kind for several pairs.
+     *
+     * <p>The figure keeps this instance's printed size; each panel gets an equal cell of it (columns
+     * across, as many rows as needed) and is laid out at that cell's size, so its text keeps the same
+     * minimum point size. Each panel is drawn by one call of a figure method on the {@code Figures} it
+     * is given (its directory and base name are ignored: nothing is written for the panel itself).
+     * The notes of each panel are returned prefixed with its letter.
+     *
+     * @param directory where to write (created if missing)
+     * @param baseName the file name without extension, already safe (see {@link FileNames#readable})
+     * @param columns panels per row, 1 to 4
+     * @param panels 1 to 12 panels, in reading order
+     * @return the files written and the panels' notes
+     * @throws IllegalArgumentException if a panel has nothing to draw, or the cells would be smaller
+     *     than 4 x 3 cm
+     */
+    public FigureResult panels(Path directory, String baseName, int columns,
+        List<java.util.function.Function<Figures, FigureResult>> panels) {
+        check(directory, baseName, panels);
+        if (panels.isEmpty() || panels.size() > 12 || !(columns >= 1 && columns <= 4)) {
+            throw new IllegalArgumentException("panel figure needs 1 to 12 panels and 1 to 4 columns: "
+                + panels.size() + " panels, " + columns + " columns");
+        }
+        int cols = Math.min(columns, panels.size());
+        int rows = (panels.size() + cols - 1) / cols;
+        FigureSize cell = FigureSize.custom(style.size().widthCm() / cols, style.size().heightCm() / rows);
+        Figures inner = new Figures(new FigureStyle(cell, style.dpi()), formats, colourRange);
+        List<org.knowm.xchart.internal.chartpart.Chart<?, ?>> charts = new ArrayList<>();
+        List<String> notes = new ArrayList<>();
+        for (int i = 0; i < panels.size(); i++) {
+            java.util.function.Function<Figures, FigureResult> panel = panels.get(i);
+            String letter = "(" + (char) ('a' + i) + ")";
+            List<FigureResult> result = new ArrayList<>();
+            List<org.knowm.xchart.internal.chartpart.Chart<?, ?>> drawn = FigureFiles.capture(() ->
+                result.add(panel.apply(inner)));
+            result.get(0).notes().forEach(n -> notes.add(letter + " " + n));
+            if (drawn.size() != 1) {
+                throw new IllegalArgumentException("panel " + letter + " must draw exactly one figure: " + drawn.size());
+            }
+            charts.add(drawn.get(0));
+        }
+        int cw = cell.widthPoints();
+        int ch = cell.heightPoints();
+        java.awt.Font letterFont = TextFont.of(style.axisTitleSize()).plain().deriveFont(java.awt.Font.BOLD);
+        FigureFiles.Drawing drawing = new FigureFiles.Drawing() {
+            @Override
+            public int width() {
+                return cw * cols;
+            }
+
+            @Override
+            public int height() {
+                return ch * rows;
+            }
+
+            @Override
+            public void paint(java.awt.Graphics2D g) {
+                for (int i = 0; i < charts.size(); i++) {
+                    java.awt.geom.AffineTransform saved = g.getTransform();
+                    g.translate((i % cols) * cw, (i / cols) * ch);
+                    charts.get(i).paint(g, cw, ch);
+                    g.setTransform(saved);
+                    g.setColor(Color.BLACK);
+                    g.setFont(letterFont);
+                    g.drawString("(" + (char) ('a' + i) + ")", (i % cols) * cw + 2f,
+                        (i / cols) * ch + 2f + letterFont.getSize2D());
+                }
+            }
+        };
+        return new FigureResult(FigureFiles.write(drawing, directory, baseName, formats, style), notes);
+    }
+
+    /**
      * Legend entries: one per state (its colour and marker; the markers with bars are the simulated
      * values), then what a solid and a dashed line mean.
      */

@@ -66,6 +66,35 @@ class PrintFiguresTest {
         return out.stream();
     }
 
+    /** Two pairs' payoff figures side by side, with panel letters, at double-column width. */
+    @org.junit.jupiter.api.Test
+    void panelsCarryLettersAndKeepTheMinimumTextSize() throws IOException {
+        Figures figures = Figures.withDefaults().withSize(FigureSize.DOUBLE_COLUMN);
+        FigureResult r = figures.panels(dir, "payoff-panels", 2, List.of(
+            f -> f.payoffByContinuation(dir, "unused", SampleData.payoff(3).withNames("", "TFT", "ALLD")),
+            f -> f.payoffByContinuation(dir, "unused", SampleData.payoff(4).withNames("", "WSLS", "GTFT"))));
+        assertEquals(List.of(dir.resolve("payoff-panels.png"), dir.resolve("payoff-panels.svg"),
+            dir.resolve("payoff-panels.pdf")), r.files());
+        assertFalse(Files.exists(dir.resolve("unused.png")), "panels are not written on their own");
+        BufferedImage png = ImageIO.read(r.files().get(0).toFile());
+        // two cells of 8.75 cm = 248 points each (rounded), at 300 / 72 pixels per point
+        assertEquals((int) (2 * 248 * 300 / 72.0), png.getWidth());
+        String svg = Files.readString(r.files().get(1));
+        double pointsPerUnit = 17.5 / 2.54 * 72 / 496;
+        Matcher m = TEXT.matcher(svg);
+        StringBuilder all = new StringBuilder();
+        while (m.find()) {
+            assertTrue(Double.parseDouble(m.group(1)) * pointsPerUnit >= MINIMUM_POINTS, m.group(2));
+            all.append(m.group(2)).append('\n');
+        }
+        for (String w : List.of("(a)", "(b)", "TFT", "ALLD", "WSLS", "GTFT")) {
+            assertTrue(all.toString().contains(w), "panel figure lacks \"" + w + "\": " + all);
+        }
+        try (PDDocument doc = Loader.loadPDF(Files.readAllBytes(r.files().get(2)))) {
+            assertEquals(496, doc.getPage(0).getMediaBox().getWidth(), 0.5);
+        }
+    }
+
     private static ConvergenceData withSubject(ConvergenceData d) {
         return new ConvergenceData(d.title(), d.simulated(), d.exact(), d.stationary(), "TFT vs WSLS, noise=0.05");
     }

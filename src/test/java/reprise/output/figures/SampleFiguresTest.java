@@ -3,6 +3,7 @@ package reprise.output.figures;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import java.nio.file.Path;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -16,6 +17,11 @@ class SampleFiguresTest {
     void rendersAllSamplesAtBothColumnWidths() {
         render(Figures.withDefaults(), DIR.resolve("single"));
         render(Figures.withDefaults().withSize(FigureSize.DOUBLE_COLUMN), DIR.resolve("double"));
+        Path dir = DIR.resolve("double");
+        assertEquals(3, Figures.withDefaults().withSize(FigureSize.DOUBLE_COLUMN).panels(dir, "g_panels", 2,
+            List.<java.util.function.Function<Figures, FigureResult>>of(
+                f -> f.convergence(dir, "x", SampleData.convergence(11)),
+                f -> f.errorScaling(dir, "x", SampleData.errorScaling(12)))).files().size());
     }
 
     private static void render(Figures f, Path dir) {
