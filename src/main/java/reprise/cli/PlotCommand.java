@@ -5,11 +5,15 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 import reprise.output.CurvesCsv;
 import reprise.output.Plotter;
+import reprise.output.figures.FigureFormat;
+import reprise.output.figures.FigureSize;
+import reprise.output.figures.Figures;
 
 /** {@code plot}: redraws the figures of a results folder from its curves.csv, without simulating again. */
 @Command(name = "plot", mixinStandardHelpOptions = true,
@@ -23,6 +27,19 @@ final class PlotCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "RESULTS_DIR", description = "A folder written by check.")
     Path dir;
 
+    @Option(names = "--figure-size", paramLabel = "SIZE", defaultValue = "single",
+        description = "Printed size: single (8.5 cm wide), double (17.5 cm) or WIDTHxHEIGHT in cm, e.g. 12x8 "
+            + "(default: ${DEFAULT-VALUE}).")
+    String figureSize;
+
+    @Option(names = "--figure-format", paramLabel = "FORMAT", split = ",", defaultValue = "png,svg,pdf",
+        description = "File formats, comma-separated: png, svg, pdf, eps (default: ${DEFAULT-VALUE}).")
+    List<String> figureFormats;
+
+    @Option(names = "--dpi", paramLabel = "DPI", defaultValue = "300",
+        description = "PNG resolution in dots per inch, 72 to 1200 (default: ${DEFAULT-VALUE}).")
+    int dpi;
+
     @Override
     public Integer call() {
         Path curves = dir.resolve("curves.csv");
@@ -33,7 +50,7 @@ final class PlotCommand implements Callable<Integer> {
         }
         List<Plotter.Drawn> drawn = new java.util.ArrayList<>();
         if (Files.isRegularFile(curves)) {
-            drawn.addAll(Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures")));
+            drawn.addAll(Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures"), figures()));
         }
         if (Files.isRegularFile(calibration)) {
             drawn.add(Plotter.drawCalibration(calibration, dir.resolve("figures")));
@@ -44,5 +61,11 @@ final class PlotCommand implements Callable<Integer> {
                 + "): " + n));
         }
         return Main.OK;
+    }
+
+    private Figures figures() {
+        List<FigureFormat> formats = figureFormats.stream().map(FigureFormat::parse).toList();
+        return Figures.withDefaults().withSize(FigureSize.parse(figureSize)).withDpi(dpi)
+            .withFormats(formats.get(0), formats.subList(1, formats.size()).toArray(FigureFormat[]::new));
     }
 }

@@ -16,6 +16,7 @@ import reprise.output.figures.ConvergenceData;
 import reprise.output.figures.Curve;
 import reprise.output.figures.ErrorScalingData;
 import reprise.output.figures.Estimates;
+import reprise.output.figures.FigureManifest;
 import reprise.output.figures.FigureResult;
 import reprise.output.figures.Figures;
 import reprise.output.figures.FileNames;
@@ -55,15 +56,34 @@ public final class Plotter {
      * @return what was drawn (or not drawn, with no files), in order
      */
     public static List<Drawn> draw(List<Curves.Point> points, Path directory) {
-        Figures figures = Figures.withDefaults();
+        return draw(points, directory, Figures.withDefaults());
+    }
+
+    /**
+     * Draws all figures with the given size, resolution and formats; see {@link #draw(List, Path)}.
+     *
+     * @param points the points
+     * @param directory where the figures go
+     * @param figures the figure settings
+     * @return what was drawn (or not drawn, with no files), in order
+     */
+    public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures) {
         Map<FigureKind, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
         for (Curves.Point p : points) {
             byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
                 .computeIfAbsent(p.group(), k -> new ArrayList<>()).add(p);
         }
-        List<Drawn> out = new ArrayList<>();
-        byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> {
-            String base = FileNames.safe(figure.label() + "-" + group);
+        java.util.Set<String> taken = new java.util.HashSet<>();
+        Figures shared = sharedColourRange(figures, points);
+        List<Job> jobs = new ArrayList<>();
+        byFigure.forEach((figure, groups) -> groups.forEach((group, pts) -> jobs.add(new Job(figure, group,
+            FileNames.unique(FileNames.readable(figure.label() + "-" + group), taken), pts))));
+        // figures are independent and Figures is thread-safe: draw them in parallel, keep their order
+        List<Drawn> out = jobs.parallelStream().map(job -> {
+            FigureKind figure = job.figure();
+            String group = job.group();
+            String base = job.base();
+            List<Curves.Point> pts = job.points();
             FigureResult r;
             try {
                 r = switch (figure) {
@@ -71,7 +91,7 @@ public final class Plotter {
                     case ERROR -> error(figures, directory, base, pts);
                     case PAYOFF -> payoff(figures, directory, base, pts);
                     case DISTRIBUTION -> distribution(figures, directory, base, pts);
-                    case DEVIATION -> deviation(figures, directory, base, pts);
+                    case DEVIATION -> deviation(shared, directory, base, pts);
                     case VERDICTS -> verdicts(figures, directory, base, pts);
                     case CALIBRATION -> null;
                 };
@@ -81,11 +101,25 @@ public final class Plotter {
                 }
                 r = new FigureResult(List.of(), List.of("not drawn: " + ex.getMessage()));
             }
-            if (r != null) {
-                out.add(new Drawn(figure, group, r));
-            }
-        }));
+            return r == null ? null : new Drawn(figure, group, r);
+        }).filter(java.util.Objects::nonNull).toList();
+        FigureManifest.write(directory, figures, out.stream()
+            .map(d -> new FigureManifest.Entry(d.kind().label(), d.group(), d.result())).toList());
         return out;
+    }
+
+    /** One figure to draw, named before drawing so that names do not depend on timing. */
+    private record Job(FigureKind figure, String group, String base, List<Curves.Point> points) {
+    }
+
+    /** One colour range for every deviation heatmap, so that pairs can be compared. */
+    private static Figures sharedColourRange(Figures figures, List<Curves.Point> points) {
+        double[] range = {Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY};
+        points.stream().filter(p -> p.figure() == FigureKind.DEVIATION && Double.isFinite(p.value())).forEach(p -> {
+            range[0] = Math.min(range[0], p.value());
+            range[1] = Math.max(range[1], p.value());
+        });
+        return range[0] <= range[1] ? figures.withColourRange(range[0], range[1]) : figures;
     }
 
     /**
@@ -159,7 +193,7 @@ public final class Plotter {
             exact.add(new Curve(xs(e), ys(e)));
             stationary[s] = st.isEmpty() ? Double.NaN : st.get(0).y();
         }
-        return f.convergence(dir, base, new ConvergenceData("", sim, exact, stationary));
+        return f.convergence(dir, base, new ConvergenceData("", sim, exact, stationary, pts.get(0).group()));
     }
 
     private static FigureResult error(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -168,8 +202,10 @@ public final class Plotter {
         if (sim.isEmpty()) {
             return null;
         }
-        return f.errorScaling(dir, base, new ErrorScalingData("", "payoff of X per round", xs(sim), ys(sim),
-            bias.isEmpty() ? null : new Curve(xs(bias), ys(bias))));
+        List<Curves.Point> se = series(pts, "exact standard error");
+        return f.errorScaling(dir, base, new ErrorScalingData("", sim.get(0).group(), "payoff of X per round",
+            estimates(sim), bias.isEmpty() ? null : new Curve(xs(bias), ys(bias)),
+            se.isEmpty() ? null : new Curve(xs(se), ys(se))));
     }
 
     private static FigureResult payoff(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -182,7 +218,7 @@ public final class Plotter {
         List<Curves.Point> sy = series(pts, "Y simulated");
         return f.payoffByContinuation(dir, base, new PayoffData("", "payoff per round, E[total] / E[length]",
             new Curve(xs(ex), ys(ex)), new Curve(xs(ey), ys(ey)), sx.isEmpty() ? null : estimates(sx),
-            sy.isEmpty() ? null : estimates(sy)));
+            sy.isEmpty() ? null : estimates(sy)).withNames(ex.get(0).group(), "X", "Y"));
     }
 
     private static FigureResult distribution(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -198,7 +234,7 @@ public final class Plotter {
             exact.add(new Curve(xs(e), ys(e)));
             sim.add(estimates(m));
         }
-        return f.stateDistribution(dir, base, new StateDistributionData("", exact, sim));
+        return f.stateDistribution(dir, base, new StateDistributionData("", exact, sim, pts.get(0).group()));
     }
 
     private record Grid(List<String> xLabels, List<String> yLabels, List<Double> xs, List<Double> ys) {
@@ -226,7 +262,7 @@ public final class Plotter {
             v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = p.value();
         }
         return f.valueHeatmap(dir, base, new GridValues("", new GridAxes("execution error", g.xLabels(),
-            "game length (rounds)", g.yLabels()), "|observed - stationary| payoff of X", v));
+            horizonTitle(g), g.yLabels()), "|observed - stationary| payoff of X", v));
     }
 
     private static FigureResult verdicts(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -239,6 +275,11 @@ public final class Plotter {
             v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = (int) p.value();
         }
         return f.verdictHeatmap(dir, base, new GridVerdicts("", new GridAxes("execution error", g.xLabels(),
-            "game length (rounds)", g.yLabels()), List.of("stationary holds", "inconclusive", "stationary fails"), v));
+            horizonTitle(g), g.yLabels()), List.of("agrees", "inconclusive", "disagrees"), v));
+    }
+
+    /** The heatmaps' y-axis: game lengths are whole numbers of rounds, continuation probabilities lie below 1. */
+    private static String horizonTitle(Grid g) {
+        return g.ys().stream().allMatch(y -> y < 1) ? "continuation probability \u03b4" : "game length (rounds)";
     }
 }

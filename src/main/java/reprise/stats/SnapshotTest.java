@@ -174,7 +174,8 @@ public final class SnapshotTest {
                 logFactorial[i] = logFactorial[i - 1] + Math.log(i);
             }
             double observed = logProbability(c.n, logP, logFactorial);
-            double p = enumerate(new long[k], 0, c.total, logP, logFactorial, observed + TIE_TOLERANCE);
+            double p = enumerate(0, k, c.total, 0, logP, logFactorial, logFactorial[(int) c.total],
+                observed + TIE_TOLERANCE);
             return new TestResult(pearson(c), k - 1, Math.min(1, p), String.format(Locale.ROOT,
                 "exact multinomial test, %d outcomes enumerated (an expected count is below %s)",
                 (long) compositions, minimumExpected), TestResult.SmallSample.EXACT);
@@ -184,11 +185,15 @@ public final class SnapshotTest {
                 + "the enumeration limit %d; configure withMonteCarlo(generator, samples)", compositions,
                 enumerationLimit));
         }
-        double observed = sample(c, c.n.clone(), false);
+        List<java.util.Map<Long, MemoBinomial>> memo = new ArrayList<>();
+        for (int j = 0; j < k; j++) {
+            memo.add(new java.util.HashMap<>());
+        }
+        double observed = sample(c, c.n.clone(), false, memo);
         long[] draw = new long[k];
         long noMoreLikely = 0;
         for (int m = 0; m < samples; m++) {
-            if (sample(c, draw, true) <= observed + TIE_TOLERANCE) {
+            if (sample(c, draw, true, memo) <= observed + TIE_TOLERANCE) {
                 noMoreLikely++;
             }
         }
@@ -198,17 +203,30 @@ public final class SnapshotTest {
             TestResult.SmallSample.MONTE_CARLO);
     }
 
-    private double enumerate(long[] x, int j, long remaining, double[] logP, double[] logFactorial, double bound) {
-        int k = x.length;
+    /**
+     * Sums exp(log-probability) over the compositions with the first j cells fixed, whose partial
+     * log-probability (cells 0 to j - 1, accumulated in cell order exactly as
+     * {@link #logProbability} does) is {@code prefix}; carrying it down keeps every floating-point
+     * operation, and so every bit of the sum, the same as recomputing each leaf from scratch.
+     */
+    private static double enumerate(int j, int k, long remaining, double prefix, double[] logP, double[] logFactorial,
+        double logTotalFactorial, double bound) {
         if (j == k - 1) {
-            x[j] = remaining;
-            double lp = logProbability(x, logP, logFactorial);
+            double lp = prefix - logFactorial[(int) remaining];
+            if (remaining > 0) {
+                lp += remaining * logP[j];
+            }
+            lp += logTotalFactorial;
             return lp <= bound ? Math.exp(lp) : 0;
         }
         double sum = 0;
+        double logPj = logP[j];
         for (long v = 0; v <= remaining; v++) {
-            x[j] = v;
-            sum += enumerate(x, j + 1, remaining - v, logP, logFactorial, bound);
+            double lp = prefix - logFactorial[(int) v];
+            if (v > 0) {
+                lp += v * logPj;
+            }
+            sum += enumerate(j + 1, k, remaining - v, lp, logP, logFactorial, logTotalFactorial, bound);
         }
         return sum;
     }
@@ -228,9 +246,11 @@ public final class SnapshotTest {
 
     /**
      * A multinomial draw by successive conditional binomials; returns its log-probability, computed by
-     * the same chain rule (the library's binomial log-probabilities, accurate for any count).
+     * the same chain rule (the library's binomial log-probabilities, accurate for any count). Each
+     * binomial draw is the inversion of one uniform, as the library's sampler does; see
+     * {@link MemoBinomial}.
      */
-    private double sample(Cells c, long[] out, boolean draw) {
+    private double sample(Cells c, long[] out, boolean draw, List<java.util.Map<Long, MemoBinomial>> memo) {
         long remaining = c.total;
         double mass = 1;
         double logProbability = 0;
@@ -239,9 +259,10 @@ public final class SnapshotTest {
             long v = draw ? 0 : out[j];
             if (remaining > 0) {
                 double q = Math.min(1, c.p[j] / Math.max(mass, c.p[j]));
-                BinomialDistribution b = BinomialDistribution.of((int) remaining, q);
+                long n = remaining;
+                MemoBinomial b = memo.get(j).computeIfAbsent(n, m -> new MemoBinomial((int) (long) m, q));
                 if (draw) {
-                    v = b.createSampler(rng).sample();
+                    v = b.inverseCumulativeProbability(rng.nextDouble());
                 }
                 logProbability += b.logProbability((int) v);
             }
@@ -251,6 +272,85 @@ public final class SnapshotTest {
         }
         out[k - 1] = remaining;
         return logProbability;
+    }
+
+    /**
+     * One binomial distribution of the Monte Carlo draws with its cumulative and log-probabilities
+     * remembered, since the same few values are asked for in every one of the M draws.
+     *
+     * <p>Implementation note: the library's sampler ({@code BinomialDistribution.createSampler}) is
+     * inversion of {@code rng.nextDouble()} by {@code inverseCumulativeProbability}, which brackets the
+     * answer with Chebyshev's inequality and bisects on the library's cumulative probability. The
+     * method below repeats that search step by step (same bracket arithmetic, same comparisons) and only
+     * looks the cumulative probabilities up in a table instead of recomputing them, so every draw, and
+     * so every p-value, is bit for bit what the library's sampler gives; SnapshotTestTest compares the
+     * two over many uniforms.
+     */
+    static final class MemoBinomial {
+        private final BinomialDistribution distribution;
+        private final int lower;
+        private final int upper;
+        private final double mean;
+        private final double sd;
+        private final java.util.Map<Integer, Double> cumulative = new java.util.HashMap<>();
+        private final java.util.Map<Integer, Double> logProbabilities = new java.util.HashMap<>();
+
+        MemoBinomial(int trials, double probability) {
+            distribution = BinomialDistribution.of(trials, probability);
+            lower = distribution.getSupportLowerBound();
+            upper = distribution.getSupportUpperBound();
+            mean = distribution.getMean();
+            sd = Math.sqrt(distribution.getVariance());
+        }
+
+        double logProbability(int x) {
+            return logProbabilities.computeIfAbsent(x, distribution::logProbability);
+        }
+
+        private int compare(int x, double p) {
+            return Double.compare(cumulative.computeIfAbsent(x, distribution::cumulativeProbability), p);
+        }
+
+        /** The library's {@code inverseCumulativeProbability(p)} for p in [0, 1). */
+        int inverseCumulativeProbability(double p) {
+            double q = 1 - p;
+            int lo = lower;
+            if (p == 0) {
+                return lo;
+            }
+            int hi = upper;
+            if (q == 0) {
+                return hi;
+            }
+            if (lo == Integer.MIN_VALUE) {
+                if (compare(lo, p) >= 0) {
+                    return lo;
+                }
+            } else {
+                lo -= 1;
+            }
+            if (Double.isFinite(mean) && sd > 0 && sd < Double.POSITIVE_INFINITY) {
+                double tmp = mean - sd * Math.sqrt(q / p);
+                if (tmp > lo) {
+                    lo = ((int) Math.ceil(tmp)) - 1;
+                }
+                tmp = mean + sd * Math.sqrt(p / q);
+                if (tmp < hi) {
+                    hi = ((int) Math.ceil(tmp)) - 1;
+                }
+            }
+            long a = lo;
+            long b = hi;
+            while (a + 1 < b) {
+                long mid = (a + b) / 2;
+                if (compare((int) mid, p) < 0) {
+                    a = mid;
+                } else {
+                    b = mid;
+                }
+            }
+            return (int) b;
+        }
     }
 
     private static double pearson(Cells c) {

@@ -6,6 +6,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.stream.Stream;
 import org.apache.commons.rng.simple.RandomSource;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.statistics.distribution.BinomialDistribution;
 import org.apache.commons.statistics.distribution.ChiSquaredDistribution;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -40,6 +42,38 @@ class SnapshotTestTest {
         assertTrue(r.note().startsWith("exact multinomial test, 10 outcomes"), r.note());
         assertEquals(TestResult.SmallSample.EXACT, r.smallSample());
         assertEquals(2, r.degreesOfFreedom());
+    }
+
+    /**
+     * The remembered binomial inversion used by the Monte Carlo test must give exactly the draws of the
+     * library's own sampler (Commons Statistics BinomialDistribution.createSampler, inversion of one
+     * uniform), so that p-values stay bit for bit the same: compared on 20,000 uniforms per
+     * distribution, plus the edge uniforms 0 and the largest double below 1, over trial counts and
+     * success probabilities from degenerate (0 and 1) to skewed and symmetric. A deterministic
+     * comparison against the reference library, no tolerance.
+     */
+    static Stream<Arguments> binomials() {
+        return Stream.of(Arguments.of(1, 0.5), Arguments.of(7, 0.0), Arguments.of(7, 1.0), Arguments.of(50, 0.001),
+            Arguments.of(200, 0.3), Arguments.of(2000, 0.9), Arguments.of(2000, 0.0015), Arguments.of(100_000, 0.5),
+            Arguments.of(30, 0.999999));
+    }
+
+    @ParameterizedTest
+    @MethodSource("binomials")
+    void rememberedInversionDrawsWhatTheLibrarySamplerDraws(int trials, double probability) {
+        BinomialDistribution library = BinomialDistribution.of(trials, probability);
+        SnapshotTest.MemoBinomial memo = new SnapshotTest.MemoBinomial(trials, probability);
+        UniformRandomProvider a = RandomSource.XO_RO_SHI_RO_128_PP.create(17L);
+        UniformRandomProvider b = RandomSource.XO_RO_SHI_RO_128_PP.create(17L);
+        var sampler = library.createSampler(a);
+        for (int i = 0; i < 20_000; i++) {
+            int expected = sampler.sample();
+            assertEquals(expected, memo.inverseCumulativeProbability(b.nextDouble()), "draw " + i);
+            assertEquals(library.logProbability(expected), memo.logProbability(expected));
+        }
+        for (double u : new double[] {0, Math.nextDown(1.0), 1e-300, 0.5}) {
+            assertEquals(library.inverseCumulativeProbability(u), memo.inverseCumulativeProbability(u), "u = " + u);
+        }
     }
 
     @Test

@@ -30,4 +30,23 @@ final class ColourScale {
         int digits = (int) Math.max(0, -Math.floor(Math.log10(unit)));
         return new java.math.BigDecimal(v).setScale(digits, java.math.RoundingMode.HALF_EVEN).doubleValue();
     }
+
+    /**
+     * The smallest of 1, 2, 2.5 and 5 times a power of ten that is at least {@code raw}.
+     *
+     * @param raw a positive step
+     * @return the round step
+     */
+    static double niceStep(double raw) {
+        if (!(raw > 0) || !Double.isFinite(raw)) {
+            return 1;
+        }
+        double unit = Math.pow(10, Math.floor(Math.log10(raw)));
+        for (double m : new double[] {1, 2, 2.5, 5, 10}) {
+            if (m * unit >= raw * (1 - 1e-12)) {
+                return round(m * unit, unit / 10);
+            }
+        }
+        return 10 * unit;
+    }
 }

@@ -11,6 +11,7 @@ import reprise.game.State;
  * <p>All three lists and the array are in the state order CC, CD, DC, DD of {@link State}.
  *
  * @param title a title drawn above the plot, or blank for none (a paper usually puts it in the caption)
+ * @param subject what the figure is about (pair, settings), shown as the first legend line, or blank
  * @param simulated per state: x = game length n in rounds (positive), estimate = mean fraction of
  *     rounds spent in the state over the simulated games, with its interval
  * @param exact per state: x = game length n (dense), y = the exact finite-horizon expectation of the
@@ -18,7 +19,20 @@ import reprise.game.State;
  * @param stationary per state: the stationary probability, drawn as a horizontal dashed line (NaN: not
  *     drawn, for example when the chain has no unique stationary distribution)
  */
-public record ConvergenceData(String title, List<Estimates> simulated, List<Curve> exact, double[] stationary) {
+public record ConvergenceData(String title, List<Estimates> simulated, List<Curve> exact, double[] stationary,
+    String subject) {
+
+    /**
+     * The data without a subject line.
+     *
+     * @param title the title, may be blank
+     * @param simulated see the record description
+     * @param exact see the record description
+     * @param stationary see the record description
+     */
+    public ConvergenceData(String title, List<Estimates> simulated, List<Curve> exact, double[] stationary) {
+        this(title, simulated, exact, stationary, "");
+    }
 
     /**
      * Validates that every list has one entry per state and copies the data.
@@ -30,6 +44,7 @@ public record ConvergenceData(String title, List<Estimates> simulated, List<Curv
      */
     public ConvergenceData {
         title = Validation.label("title", title);
+        subject = Validation.label("subject", subject);
         simulated = Validation.exactly("simulated frequencies (one per state CC, CD, DC, DD)", simulated,
             State.COUNT);
         exact = Validation.exactly("exact expectation curves (one per state CC, CD, DC, DD)", exact, State.COUNT);
@@ -46,7 +61,7 @@ public record ConvergenceData(String title, List<Estimates> simulated, List<Curv
     @Override
     public boolean equals(Object o) {
         return o instanceof ConvergenceData d && title.equals(d.title) && simulated.equals(d.simulated)
-            && exact.equals(d.exact) && Arrays.equals(stationary, d.stationary);
+            && exact.equals(d.exact) && Arrays.equals(stationary, d.stationary) && subject.equals(d.subject);
     }
 
     @Override

@@ -20,10 +20,11 @@ import reprise.game.State;
  * Draws the figures of a validation study and writes each in the chosen formats (PNG and SVG by
  * default) into a directory.
  *
- * <p>Every figure has labelled axes with units, a legend, 15 pt axis titles and 13 pt tick labels in
- * the JVM's logical sans-serif font (present on every headless JVM), a white background without plot
- * border or grid, and the same size (800 x 560 points by default; PNG at 144 dpi, i.e. 1600 x 1120
- * pixels). Line styles carry meaning so a greyscale print still reads: a solid line is an exact value,
+ * <p>Every figure has labelled axes with units, a legend, and is laid out at its printed size
+ * ({@link FigureSize}: single column 8.5 cm by default, double column 17.5 cm, or any other) with every
+ * text at least 7.5 pt on paper, in the JVM's logical sans-serif font (present on every headless JVM),
+ * on a white background without plot border or grid. PNG files are rendered at 300 dpi by default;
+ * SVG, PDF and EPS files keep text as text. Line styles carry meaning so a greyscale print still reads: a solid line is an exact value,
  * markers with vertical bars are simulated estimates with their intervals, a dashed line is a reference
  * (stationary value, sampling slope, diagonal). Colours come from the Okabe-Ito palette; the state order
  * CC, CD, DC, DD always maps to blue, orange, bluish green, vermillion and circle, square, diamond,
@@ -34,8 +35,9 @@ import reprise.game.State;
  * all is an error. The JVM is switched to headless mode when this class loads unless the
  * {@code java.awt.headless} property was already set.
  *
- * <p>Instances are immutable: start from {@link #withDefaults()} and change size, resolution or formats
- * with the {@code with...} methods.
+ * <p>Instances are immutable: start from {@link #withDefaults()} and change size, resolution, formats
+ * or colour range with the {@code with...} methods. Drawing is thread-safe: several figures may be
+ * written at once from different threads.
  *
  * <p>References:
  * <ul>
@@ -59,26 +61,38 @@ public final class Figures {
 
     private final FigureStyle style;
     private final Set<FigureFormat> formats;
+    private final double[] colourRange;
 
-    private Figures(FigureStyle style, Set<FigureFormat> formats) {
+    private Figures(FigureStyle style, Set<FigureFormat> formats, double[] colourRange) {
         this.style = style;
         this.formats = formats;
+        this.colourRange = colourRange;
     }
 
-    /** @return figures of 800 x 560 points, PNG at 144 dpi, written as PNG and SVG */
+    /** @return single-column figures (8.5 x 6.4 cm), PNG at 300 dpi, written as PNG, SVG and PDF */
     public static Figures withDefaults() {
-        return new Figures(new FigureStyle(800, 560, 144), EnumSet.of(FigureFormat.PNG, FigureFormat.SVG));
+        return new Figures(new FigureStyle(FigureSize.SINGLE_COLUMN, 300),
+            EnumSet.of(FigureFormat.PNG, FigureFormat.SVG, FigureFormat.PDF), null);
     }
 
     /**
-     * The same settings at another size.
+     * The same settings at another printed size.
      *
-     * @param width in points (200 to 10000)
-     * @param height in points (150 to 10000)
+     * @param size {@link FigureSize#SINGLE_COLUMN}, {@link FigureSize#DOUBLE_COLUMN} or a custom size
      * @return a new instance
      */
-    public Figures withSize(int width, int height) {
-        return new Figures(new FigureStyle(width, height, style.dpi()), formats);
+    public Figures withSize(FigureSize size) {
+        return new Figures(new FigureStyle(size, style.dpi()), formats, colourRange);
+    }
+
+    /** @return the printed size */
+    public FigureSize size() {
+        return style.size();
+    }
+
+    /** @return the formats written, in the enum's order */
+    public Set<FigureFormat> formats() {
+        return EnumSet.copyOf(formats);
     }
 
     /**
@@ -88,7 +102,12 @@ public final class Figures {
      * @return a new instance
      */
     public Figures withDpi(int dpi) {
-        return new Figures(new FigureStyle(style.width(), style.height(), dpi), formats);
+        return new Figures(new FigureStyle(style.size(), dpi), formats, colourRange);
+    }
+
+    /** @return the PNG resolution in dots per inch */
+    public int dpi() {
+        return style.dpi();
     }
 
     /**
@@ -96,14 +115,29 @@ public final class Figures {
      *
      * @param first a format
      * @param more further formats
-     * @return a new instance; files are written in the enum's order PNG, SVG, PDF
+     * @return a new instance; files are written in the enum's order PNG, SVG, PDF, EPS
      */
     public Figures withFormats(FigureFormat first, FigureFormat... more) {
         if (first == null || Arrays.asList(more).contains(null)) {
             throw new IllegalArgumentException("figure formats must not be null: " + first + ", "
                 + Arrays.toString(more));
         }
-        return new Figures(style, EnumSet.of(first, more));
+        return new Figures(style, EnumSet.of(first, more), colourRange);
+    }
+
+    /**
+     * The same settings with one colour range for every value heatmap, so that heatmaps of several pairs
+     * can be compared cell by cell (see {@link GridValues#range}).
+     *
+     * @param min the value at the dark end of the ramp, finite
+     * @param max the value at the light end, finite and at least {@code min}
+     * @return a new instance
+     */
+    public Figures withColourRange(double min, double max) {
+        if (!(Double.isFinite(min) && Double.isFinite(max) && min <= max)) {
+            throw new IllegalArgumentException("colour range must be finite with min <= max: " + min + ", " + max);
+        }
+        return new Figures(style, formats, new double[] {min, max});
     }
 
     /**
@@ -127,27 +161,60 @@ public final class Figures {
     public FigureResult convergence(Path directory, String baseName, ConvergenceData data) {
         check(directory, baseName, data);
         Plot plot = new Plot(style, data.title(), "game length n (rounds)", "frequency of state (fraction of rounds)",
-            true, false);
+            AxisScale.LOG, AxisScale.LINEAR);
+        plot.legend(Styler.LegendPosition.OutsideE);
+        plot.heading(data.subject());
         double[] range = xRange(data.simulated(), data.exact(), true);
-        double span = range[0] > 0 && range[1] > range[0] ? Math.log10(range[1] / range[0]) : 0;
         double[] stationary = data.stationary();
         for (int s = 0; s < State.COUNT; s++) {
             Curve c = data.exact().get(s);
             plot.curve(null, STATE_NAMES[s] + " exact expectation", c.x(), c.y(), Palette.STATES[s], Plot.SOLID);
-            if (Double.isFinite(stationary[s]) && range[0] > 0) {
-                plot.curve(null, STATE_NAMES[s] + " stationary value", new double[] {range[0], range[1]},
-                    new double[] {stationary[s], stationary[s]}, Palette.STATES[s], Plot.DASHED);
-            } else if (!Double.isFinite(stationary[s])) {
+            if (!Double.isFinite(stationary[s])) {
                 plot.note(STATE_NAMES[s] + " stationary value: not drawn (" + stationary[s] + ")");
             }
         }
-        for (int s = 0; s < State.COUNT; s++) {
-            double dodge = Math.pow(10, (s - 1.5) * 0.006 * span);
-            plot.estimates(STATE_NAMES[s] + " simulated", STATE_NAMES[s] + " simulated frequency",
-                data.simulated().get(s), Palette.STATES[s], Plot.MARKERS[s], dodge);
+        if (range[0] > 0) {
+            stationaryLines(plot, stationary, range);
         }
-        addLineKeys(plot, "exact expectation", "stationary value");
+        double[][] anchors = new double[State.COUNT][];
+        for (int s = 0; s < State.COUNT; s++) {
+            anchors[s] = plot.estimates(null, STATE_NAMES[s] + " simulated frequency", data.simulated().get(s),
+                Palette.STATES[s], Plot.MARKERS[s]);
+        }
+        addKeys(plot, anchors, "exact", "stationary");
         return finish(plot, directory, baseName);
+    }
+
+    /**
+     * The states' stationary values as dashed horizontal lines. States whose values coincide (within
+     * 1e-9, e.g. CD and DC of a symmetric pair) share one line of interleaved dashes, one colour after the
+     * other, so that no colour hides another.
+     */
+    private static void stationaryLines(Plot plot, double[] stationary, double[] range) {
+        boolean[] done = new boolean[stationary.length];
+        for (int s = 0; s < stationary.length; s++) {
+            if (done[s] || !Double.isFinite(stationary[s])) {
+                continue;
+            }
+            List<Integer> same = new ArrayList<>();
+            for (int t = s; t < stationary.length; t++) {
+                if (!done[t] && Double.isFinite(stationary[t]) && Math.abs(stationary[t] - stationary[s]) <= 1e-9) {
+                    same.add(t);
+                    done[t] = true;
+                }
+            }
+            int m = same.size();
+            float dash = Plot.DASHED.getDashArray()[0];
+            float gap = Plot.DASHED.getDashArray()[1];
+            for (int i = 0; i < m; i++) {
+                java.awt.BasicStroke stroke = m == 1 ? Plot.DASHED : new java.awt.BasicStroke(
+                    Plot.DASHED.getLineWidth(), java.awt.BasicStroke.CAP_BUTT, java.awt.BasicStroke.JOIN_MITER, 10f,
+                    new float[] {dash, m * (dash + gap) - dash}, (m - i) * (dash + gap));
+                int st = same.get(i);
+                plot.curve(null, STATE_NAMES[st] + " stationary value", new double[] {range[0], range[1]},
+                    new double[] {stationary[st], stationary[st]}, Palette.STATES[st], stroke);
+            }
+        }
     }
 
     /**
@@ -171,32 +238,18 @@ public final class Figures {
     public FigureResult errorScaling(Path directory, String baseName, ErrorScalingData data) {
         check(directory, baseName, data);
         Plot plot = new Plot(style, data.title(), "game length n (rounds)",
-            "absolute error |observed \u2212 stationary|, " + data.quantity(), true, true);
-        double[][] observed = plot.drawable("observed error", data.gameLengths(), data.absoluteError());
+            "|observed \u2212 stationary|, " + data.quantity(), AxisScale.LOG, AxisScale.LOG);
+        plot.legend(Styler.LegendPosition.InsideNE);
+        plot.heading(data.subject());
+        if (data.exactStandardError() != null) {
+            plot.curve("exact standard error (sampling alone)", "exact standard error",
+                data.exactStandardError().x(), data.exactStandardError().y(), Palette.BLACK, Plot.DASHED);
+        }
         if (data.exactBias() != null) {
-            plot.curve("exact bias |E f\u2099 \u2212 \u03c0| (slope \u22121)", "exact bias", data.exactBias().x(),
+            plot.curve("exact bias |E f\u2099 \u2212 \u03c0|", "exact bias", data.exactBias().x(),
                 data.exactBias().y(), Palette.VERMILLION, Plot.SOLID);
         }
-        if (observed[0].length > 0) {
-            double n0 = observed[0][0];
-            double e0 = observed[1][0];
-            double nMax = Arrays.stream(observed[0]).max().orElse(n0);
-            if (nMax > n0) {
-                int m = 50;
-                double[] rx = new double[m];
-                double[] ry = new double[m];
-                for (int i = 0; i < m; i++) {
-                    rx[i] = n0 * Math.pow(nMax / n0, i / (m - 1.0));
-                    ry[i] = e0 * Math.sqrt(n0 / rx[i]);
-                }
-                plot.curve("slope \u22121/2 (sampling)", "sampling reference", rx, ry, Palette.BLACK, Plot.DASHED);
-            } else {
-                plot.note("sampling reference line not drawn: the first drawable game length is the largest");
-            }
-            plot.markedLine("observed error", observed[0], observed[1], Palette.BLUE, Plot.MARKERS[0], Plot.THIN);
-        } else {
-            plot.note("observed error: nothing drawn, no usable points");
-        }
+        plot.estimates("observed error", "observed error", data.observed(), Palette.BLUE, Plot.MARKERS[0]);
         return finish(plot, directory, baseName);
     }
 
@@ -216,28 +269,71 @@ public final class Figures {
      */
     public FigureResult payoffByContinuation(Path directory, String baseName, PayoffData data) {
         check(directory, baseName, data);
-        Plot plot = new Plot(style, data.title(), "continuation probability \u03b4", data.payoffDescription(),
-            false, false);
-        List<Estimates> simulated = new ArrayList<>();
-        if (data.simulatedX() != null) {
-            simulated.add(data.simulatedX());
+        boolean lengths = data.axis() == ContinuationAxis.EXPECTED_LENGTH;
+        Plot plot = new Plot(style, data.title(), lengths ? "expected game length 1/(1 \u2212 \u03b4) (rounds)"
+            : "continuation probability \u03b4", data.payoffDescription(), lengths ? AxisScale.LOG : AxisScale.LINEAR,
+            AxisScale.LINEAR);
+        plot.legend(Styler.LegendPosition.OutsideE);
+        plot.heading(data.subject());
+        Curve ex = lengths ? toLengths(data.exactX()) : data.exactX();
+        Curve ey = lengths ? toLengths(data.exactY()) : data.exactY();
+        String x = data.playerX();
+        String y = data.playerY();
+        plot.curve(null, x + " exact payoff", ex.x(), ex.y(), Palette.BLUE, Plot.SOLID);
+        plot.curve(null, y + " exact payoff", ey.x(), ey.y(), Palette.ORANGE, Plot.SOLID);
+        double[] span = xRange(List.of(), List.of(ex, ey), lengths);
+        boolean stationary = false;
+        if (Double.isFinite(span[0])) {
+            if (Double.isFinite(data.stationaryX())) {
+                stationary |= plot.curve(null, x + " stationary payoff", span,
+                    new double[] {data.stationaryX(), data.stationaryX()}, Palette.BLUE, Plot.DASHED);
+            }
+            if (Double.isFinite(data.stationaryY())) {
+                stationary |= plot.curve(null, y + " stationary payoff", span,
+                    new double[] {data.stationaryY(), data.stationaryY()}, Palette.ORANGE, Plot.DASHED);
+            }
         }
-        if (data.simulatedY() != null) {
-            simulated.add(data.simulatedY());
-        }
-        double[] range = xRange(simulated, List.of(data.exactX(), data.exactY()), false);
-        double offset = 0.004 * (range[1] > range[0] ? range[1] - range[0] : 0);
-        plot.curve("X exact", "X exact payoff", data.exactX().x(), data.exactX().y(), Palette.BLUE, Plot.SOLID);
-        plot.curve("Y exact", "Y exact payoff", data.exactY().x(), data.exactY().y(), Palette.ORANGE, Plot.SOLID);
-        if (data.simulatedX() != null) {
-            plot.estimates("X simulated", "X simulated payoff", data.simulatedX(), Palette.BLUE, Plot.MARKERS[0],
-                -offset);
-        }
-        if (data.simulatedY() != null) {
-            plot.estimates("Y simulated", "Y simulated payoff", data.simulatedY(), Palette.ORANGE, Plot.MARKERS[1],
-                offset);
+        double[] ax = data.simulatedX() == null ? null : plot.estimates(null, x + " simulated payoff",
+            lengths ? toLengths(data.simulatedX()) : data.simulatedX(), Palette.BLUE, Plot.MARKERS[0]);
+        double[] ay = data.simulatedY() == null ? null : plot.estimates(null, y + " simulated payoff",
+            lengths ? toLengths(data.simulatedY()) : data.simulatedY(), Palette.ORANGE, Plot.MARKERS[1]);
+        if (plot.hasSeries()) {
+            var first = plot.chart().getSeriesMap().values().iterator().next();
+            double kx = first.getXMin();
+            double ky = first.getYMin();
+            if (ax != null) {
+                plot.markerKey(x, Palette.BLUE, Plot.MARKERS[0], ax[0], ax[1]);
+            } else {
+                plot.key(x, Palette.BLUE, Plot.SOLID, kx, ky);
+            }
+            if (ay != null) {
+                plot.markerKey(y, Palette.ORANGE, Plot.MARKERS[1], ay[0], ay[1]);
+            } else {
+                plot.key(y, Palette.ORANGE, Plot.SOLID, kx, ky);
+            }
+            plot.key("exact", Palette.BLACK, Plot.SOLID, kx, ky);
+            if (stationary) {
+                plot.key("\u03b4 \u2192 1", Palette.BLACK, Plot.DASHED, kx, ky);
+            }
         }
         return finish(plot, directory, baseName);
+    }
+
+    /** x = delta becomes x = 1/(1 - delta), the expected number of rounds. */
+    private static Curve toLengths(Curve c) {
+        return new Curve(expectedLengths(c.x()), c.y());
+    }
+
+    private static Estimates toLengths(Estimates e) {
+        return new Estimates(expectedLengths(e.x()), e.estimate(), e.lower(), e.upper());
+    }
+
+    private static double[] expectedLengths(double[] delta) {
+        double[] n = new double[delta.length];
+        for (int i = 0; i < n.length; i++) {
+            n[i] = 1 / (1 - delta[i]);
+        }
+        return n;
     }
 
     /**
@@ -257,18 +353,20 @@ public final class Figures {
      */
     public FigureResult stateDistribution(Path directory, String baseName, StateDistributionData data) {
         check(directory, baseName, data);
-        Plot plot = new Plot(style, data.title(), "round t", "probability of state in round t", false, false);
-        double[] range = xRange(data.simulated(), data.exact(), false);
-        double span = range[1] > range[0] ? range[1] - range[0] : 0;
+        Plot plot = new Plot(style, data.title(), "round t", "probability of state in round t", AxisScale.LINEAR,
+            AxisScale.LINEAR);
+        plot.legend(Styler.LegendPosition.OutsideE);
+        plot.heading(data.subject());
         for (int s = 0; s < State.COUNT; s++) {
             Curve c = data.exact().get(s);
             plot.curve(null, STATE_NAMES[s] + " exact probability", c.x(), c.y(), Palette.STATES[s], Plot.SOLID);
         }
+        double[][] anchors = new double[State.COUNT][];
         for (int s = 0; s < State.COUNT; s++) {
-            plot.estimates(STATE_NAMES[s] + " simulated", STATE_NAMES[s] + " simulated proportion",
-                data.simulated().get(s), Palette.STATES[s], Plot.MARKERS[s], (s - 1.5) * 0.004 * span);
+            anchors[s] = plot.estimates(null, STATE_NAMES[s] + " simulated proportion", data.simulated().get(s),
+                Palette.STATES[s], Plot.MARKERS[s]);
         }
-        addLineKeys(plot, "exact probability", null);
+        addKeys(plot, anchors, "exact", null);
         return finish(plot, directory, baseName);
     }
 
@@ -292,7 +390,9 @@ public final class Figures {
      */
     public FigureResult pValueCalibration(Path directory, String baseName, CalibrationData data) {
         check(directory, baseName, data);
-        Plot plot = new Plot(style, data.title(), "uniform quantile i/(K+1)", "ordered p-value", false, false);
+        Plot plot = new Plot(style, data.title(), "uniform quantile i/(K+1)", "ordered p-value", AxisScale.LINEAR,
+            AxisScale.LINEAR);
+        plot.legend(Styler.LegendPosition.InsideNW);
         Map<String, double[]> sorted = new LinkedHashMap<>();
         for (PValueSample sample : data.samples()) {
             double[] p = Arrays.stream(sample.pValues()).filter(v -> !Double.isNaN(v)).sorted().toArray();
@@ -323,9 +423,9 @@ public final class Figures {
         if (!sorted.isEmpty()) {
             // a thick grey legend key stands for the band (a box entry would make XChart misjudge the
             // legend width for the line entries)
-            plot.key(sizes.length == 1 ? "pointwise 95% band" : "pointwise 95% bands (K = "
+            plot.key(sizes.length == 1 ? "pointwise 95% band (K = " + sizes[0] + ")" : "pointwise 95% bands (K = "
                 + Arrays.toString(sizes).replaceAll("[\\[\\]]", "") + ")", Palette.BAND_GREY,
-                new java.awt.BasicStroke(11f), 0.5, 0.5);
+                new java.awt.BasicStroke(5f), 0.5, 0.5);
         }
         if (!sorted.isEmpty()) {
             plot.curve("uniform (y = x)", "diagonal", new double[] {0, 1}, new double[] {0, 1}, Palette.BLACK,
@@ -340,10 +440,10 @@ public final class Figures {
                 x[i] = (i + 1.0) / (k + 1);
             }
             Color color = Palette.SERIES[j % Palette.SERIES.length];
-            var s = plot.chart().addSeries(e.getKey() + " (K = " + k + ")", x, p);
+            var s = plot.chart().addSeries(sizes.length == 1 ? e.getKey() : e.getKey() + " (K = " + k + ")", x, p);
             s.setLineColor(color);
             s.setMarkerColor(color);
-            s.setLineStyle(QQ_STROKES[j % QQ_STROKES.length]);
+            s.setLineStyle(plot.stroke(QQ_STROKES[j % QQ_STROKES.length]));
             s.setMarker(k <= 60 ? Plot.MARKERS[j % Plot.MARKERS.length] : org.knowm.xchart.style.markers.SeriesMarkers.NONE);
             j++;
         }
@@ -355,11 +455,11 @@ public final class Figures {
     /**
      * A heatmap of a number over a two-axis grid (for example noise level against game length).
      *
-     * <p>Each cell is coloured by its value on the viridis ramp, from dark purple (the smallest value
-     * in the grid) to yellow (the largest); the colour bar at the right shows the range and the title
-     * names the quantity. NaN cells are left white. The reader should see where in the grid the value
-     * is large. The ramp is sequential: it shows magnitude, so pass magnitudes (or standardised
-     * deviations) rather than signed values whose zero matters.
+     * <p>Each cell is coloured by its value on a stepped viridis ramp, from dark purple (small) to yellow
+     * (large), over the colour range set with {@link #withColourRange} (the same for every pair) or else
+     * the grid's own range; the colour bar at the right labels every step. NaN cells are left white. The
+     * ramp is sequential: it shows magnitude, so pass magnitudes (or standardised deviations) rather than
+     * signed values whose zero matters.
      *
      * @param directory where to write (created if missing)
      * @param baseName the file name without extension, already safe (see {@link FileNames#safe})
@@ -369,46 +469,7 @@ public final class Figures {
      */
     public FigureResult valueHeatmap(Path directory, String baseName, GridValues data) {
         check(directory, baseName, data);
-        List<String> notes = new ArrayList<>();
-        double[][] values = data.values();
-        List<Number[]> cells = new ArrayList<>();
-        double min = Double.POSITIVE_INFINITY;
-        double max = Double.NEGATIVE_INFINITY;
-        int missing = 0;
-        for (int r = 0; r < values.length; r++) {
-            for (int c = 0; c < values[r].length; c++) {
-                double v = values[r][c];
-                if (Double.isFinite(v)) {
-                    cells.add(new Number[] {c, r, v});
-                    min = Math.min(min, v);
-                    max = Math.max(max, v);
-                } else {
-                    missing++;
-                }
-            }
-        }
-        if (cells.isEmpty()) {
-            throw new IllegalArgumentException("value heatmap has no finite value to draw: all "
-                + data.axes().rows() * data.axes().columns() + " cells are NaN or infinite");
-        }
-        if (missing > 0) {
-            notes.add(missing + " of " + data.axes().rows() * data.axes().columns()
-                + " cells left white (NaN or infinite value)");
-        }
-        double[] scale = ColourScale.niceRange(min, max);
-        String title = data.title().isEmpty() ? "colour: " + data.valueDescription()
-            : data.title() + " \u2014 colour: " + data.valueDescription();
-        HeatMapChart chart = heatmap(title, data.axes());
-        HeatMapStyler s = chart.getStyler();
-        s.setRangeColors(Palette.VIRIDIS);
-        s.setPiecewise(false);
-        HeatMapSeries series = chart.addSeries(FileNames.safe(data.valueDescription()), data.axes().xLabels(),
-            data.axes().yLabels(), cells);
-        series.setMin(scale[0]);
-        series.setMax(scale[1]);
-        s.setMin(scale[0]);
-        s.setMax(scale[1]);
-        return new FigureResult(FigureFiles.write(chart, directory, baseName, formats, style.dpi()), notes);
+        return Heatmaps.values(style, formats, colourRange, directory, baseName, data);
     }
 
     /**
@@ -427,63 +488,88 @@ public final class Figures {
      */
     public FigureResult verdictHeatmap(Path directory, String baseName, GridVerdicts data) {
         check(directory, baseName, data);
+        return Heatmaps.verdicts(style, formats, directory, baseName, data);
+    }
+
+    /**
+     * Several figures side by side in one file, each with a panel letter "(a)", "(b)", ... at its top
+     * left, for example the same figure kind for several pairs.
+     *
+     * <p>The figure keeps this instance's printed size; each panel gets an equal cell of it (columns
+     * across, as many rows as needed) and is laid out at that cell's size, so its text keeps the same
+     * minimum point size. Each panel is drawn by one call of a figure method on the {@code Figures} it
+     * is given (its directory and base name are ignored: nothing is written for the panel itself).
+     * The notes of each panel are returned prefixed with its letter.
+     *
+     * @param directory where to write (created if missing)
+     * @param baseName the file name without extension, already safe (see {@link FileNames#readable})
+     * @param columns panels per row, 1 to 4
+     * @param panels 1 to 12 panels, in reading order
+     * @return the files written and the panels' notes
+     * @throws IllegalArgumentException if a panel has nothing to draw, or the cells would be smaller
+     *     than 4 x 3 cm
+     */
+    public FigureResult panels(Path directory, String baseName, int columns,
+        List<java.util.function.Function<Figures, FigureResult>> panels) {
+        check(directory, baseName, panels);
+        if (panels.isEmpty() || panels.size() > 12 || !(columns >= 1 && columns <= 4)) {
+            throw new IllegalArgumentException("panel figure needs 1 to 12 panels and 1 to 4 columns: "
+                + panels.size() + " panels, " + columns + " columns");
+        }
+        int cols = Math.min(columns, panels.size());
+        int rows = (panels.size() + cols - 1) / cols;
+        FigureSize cell = FigureSize.custom(style.size().widthCm() / cols, style.size().heightCm() / rows);
+        Figures inner = new Figures(new FigureStyle(cell, style.dpi()), formats, colourRange);
+        List<org.knowm.xchart.internal.chartpart.Chart<?, ?>> charts = new ArrayList<>();
         List<String> notes = new ArrayList<>();
-        int[][] verdicts = data.verdicts();
-        List<Number[]> cells = new ArrayList<>();
-        int missing = 0;
-        for (int r = 0; r < verdicts.length; r++) {
-            for (int c = 0; c < verdicts[r].length; c++) {
-                if (verdicts[r][c] >= 0) {
-                    cells.add(new Number[] {c, r, verdicts[r][c]});
-                } else {
-                    missing++;
+        for (int i = 0; i < panels.size(); i++) {
+            java.util.function.Function<Figures, FigureResult> panel = panels.get(i);
+            String letter = "(" + (char) ('a' + i) + ")";
+            List<FigureResult> result = new ArrayList<>();
+            List<org.knowm.xchart.internal.chartpart.Chart<?, ?>> drawn = FigureFiles.capture(() ->
+                result.add(panel.apply(inner)));
+            result.get(0).notes().forEach(n -> notes.add(letter + " " + n));
+            if (drawn.size() != 1) {
+                throw new IllegalArgumentException("panel " + letter + " must draw exactly one figure: " + drawn.size());
+            }
+            charts.add(drawn.get(0));
+        }
+        int cw = cell.widthPoints();
+        int ch = cell.heightPoints();
+        java.awt.Font letterFont = TextFont.of(style.axisTitleSize()).plain().deriveFont(java.awt.Font.BOLD);
+        FigureFiles.Drawing drawing = new FigureFiles.Drawing() {
+            @Override
+            public int width() {
+                return cw * cols;
+            }
+
+            @Override
+            public int height() {
+                return ch * rows;
+            }
+
+            @Override
+            public void paint(java.awt.Graphics2D g) {
+                for (int i = 0; i < charts.size(); i++) {
+                    java.awt.geom.AffineTransform saved = g.getTransform();
+                    g.translate((i % cols) * cw, (i / cols) * ch);
+                    charts.get(i).paint(g, cw, ch);
+                    g.setTransform(saved);
+                    g.setColor(Color.BLACK);
+                    g.setFont(letterFont);
+                    g.drawString("(" + (char) ('a' + i) + ")", (i % cols) * cw + 2f,
+                        (i / cols) * ch + 2f + letterFont.getSize2D());
                 }
             }
-        }
-        if (cells.isEmpty()) {
-            throw new IllegalArgumentException("verdict heatmap has no verdict to draw: all "
-                + data.axes().rows() * data.axes().columns() + " cells are -1");
-        }
-        if (missing > 0) {
-            notes.add(missing + " of " + data.axes().rows() * data.axes().columns() + " cells left white (no verdict)");
-        }
-        List<String> names = data.verdictNames();
-        int k = names.size();
-        HeatMapChart chart = heatmap(data.title(), data.axes());
-        HeatMapStyler s = chart.getStyler();
-        // XChart's piecewise legend: k equal bins over [-0.5, k - 0.5], bin i coloured rangeColors[i] and
-        // labelled with the formatted lower bin edge i - 0.5, which the formatter maps back to name i
-        s.setRangeColors(Arrays.copyOf(Palette.VERDICTS, k));
-        s.setPiecewise(true);
-        s.setPiecewiseRanged(false);
-        s.setSplitNumber(k);
-        s.setHeatMapDecimalValueFormatter(v -> names.get(Math.max(0, Math.min(k - 1, (int) Math.round(v + 0.5)))));
-        HeatMapSeries series = chart.addSeries("verdicts", data.axes().xLabels(), data.axes().yLabels(), cells);
-        series.setMin(-0.5);
-        series.setMax(k - 0.5);
-        s.setMin(-0.5);
-        s.setMax(k - 0.5);
-        return new FigureResult(FigureFiles.write(chart, directory, baseName, formats, style.dpi()), notes);
+        };
+        return new FigureResult(FigureFiles.write(drawing, directory, baseName, formats, style), notes);
     }
 
-    private HeatMapChart heatmap(String title, GridAxes axes) {
-        // the plain (width, height) constructor leaves the heatmap styler uninitialised in XChart 3.8.8
-        HeatMapChart chart = new HeatMapChart(style.width(), style.height(), Styler.ChartTheme.XChart);
-        chart.setTitle(title);
-        chart.setXAxisTitle(axes.xTitle());
-        chart.setYAxisTitle(axes.yTitle());
-        HeatMapStyler s = chart.getStyler();
-        style.apply(s, !title.isEmpty());
-        s.setLegendPosition(Styler.LegendPosition.OutsideE);
-        s.setDrawBorder(true);
-        s.setShowValue(false);
-        s.setPlotContentSize(1.0);
-        s.setGradientColorColumnHeight(Math.max(120, style.height() / 2));
-        s.setGradientColorColumnWeight(18);
-        return chart;
-    }
-
-    private static void addLineKeys(Plot plot, String solidLabel, String dashedLabel) {
+    /**
+     * Legend entries: one per state (its colour and marker; the markers with bars are the simulated
+     * values), then what a solid and a dashed line mean.
+     */
+    private static void addKeys(Plot plot, double[][] anchors, String solidLabel, String dashedLabel) {
         if (!plot.hasSeries()) {
             return;
         }
@@ -491,6 +577,13 @@ public final class Figures {
         var first = chart.getSeriesMap().values().iterator().next();
         double ax = first.getXMin();
         double ay = first.getYMin();
+        for (int s = 0; s < State.COUNT; s++) {
+            if (anchors[s] != null) {
+                plot.markerKey(STATE_NAMES[s], Palette.STATES[s], Plot.MARKERS[s], anchors[s][0], anchors[s][1]);
+            } else {
+                plot.key(STATE_NAMES[s], Palette.STATES[s], Plot.SOLID, ax, ay);
+            }
+        }
         plot.key(solidLabel, Palette.BLACK, Plot.SOLID, ax, ay);
         if (dashedLabel != null) {
             plot.key(dashedLabel, Palette.BLACK, Plot.DASHED, ax, ay);
@@ -506,7 +599,7 @@ public final class Figures {
             throw new IllegalArgumentException("figure " + baseName + " has nothing to draw: " + plot.notes());
         }
         plot.finishAxes();
-        return new FigureResult(FigureFiles.write(plot.chart(), directory, baseName, formats, style.dpi()),
+        return new FigureResult(FigureFiles.write(plot.chart(), directory, baseName, formats, style),
             plot.notes());
     }
 

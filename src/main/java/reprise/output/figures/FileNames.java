@@ -66,4 +66,54 @@ public final class FileNames {
         crc.update(caseName.getBytes(StandardCharsets.UTF_8));
         return cleaned + "-" + String.format(Locale.ROOT, "%08x", crc.getValue());
     }
+
+    /**
+     * A readable file name (without extension) for a figure: accents stripped, every run of characters
+     * other than ASCII letters, digits and '.' becomes one '-', leading and trailing '-' and '.' removed,
+     * at most {@value #MAX_LENGTH} characters, names reserved by Windows get a trailing '-x'. Unlike
+     * {@link #safe} it appends no checksum, so two texts that differ only in replaced characters get the
+     * same name; {@link #unique} tells them apart.
+     *
+     * @param text any non-blank text, e.g. "convergence-TFT vs ALLD, noise=0.05"
+     * @return e.g. "convergence-TFT-vs-ALLD-noise-0.05"
+     * @throws IllegalArgumentException if {@code text} is null or blank
+     */
+    public static String readable(String text) {
+        if (text == null || text.isBlank()) {
+            throw new IllegalArgumentException("figure name must not be blank: "
+                + (text == null ? "null" : "\"" + text + "\""));
+        }
+        String ascii = Normalizer.normalize(text, Normalizer.Form.NFKD).replaceAll("\\p{M}+", "");
+        String cleaned = ascii.replaceAll("[^A-Za-z0-9.]+", "-").replaceAll("^[.-]+|[.-]+$", "");
+        if (cleaned.length() > MAX_LENGTH) {
+            cleaned = cleaned.substring(0, MAX_LENGTH).replaceAll("[.-]+$", "");
+        }
+        if (cleaned.isEmpty()) {
+            cleaned = "figure";
+        }
+        int stem = cleaned.indexOf('.') < 0 ? cleaned.length() : cleaned.indexOf('.');
+        if (RESERVED.contains(cleaned.substring(0, stem).toUpperCase(Locale.ROOT))) {
+            cleaned = cleaned.substring(0, stem) + "-x" + cleaned.substring(stem);
+        }
+        return cleaned;
+    }
+
+    /**
+     * {@code name} itself if not yet taken, else {@code name-2}, {@code name-3}, ... (the first free one);
+     * the name returned is added to {@code taken}. Case is ignored when comparing, as on macOS and
+     * Windows file systems.
+     *
+     * @param name a name from {@link #readable}
+     * @param taken the names used so far (lower case), updated
+     * @return the free name
+     */
+    public static String unique(String name, Set<String> taken) {
+        String candidate = name;
+        for (int i = 2; !taken.add(candidate.toLowerCase(Locale.ROOT)); i++) {
+            String suffix = "-" + i;
+            candidate = (name.length() + suffix.length() > MAX_LENGTH
+                ? name.substring(0, MAX_LENGTH - suffix.length()) : name) + suffix;
+        }
+        return candidate;
+    }
 }

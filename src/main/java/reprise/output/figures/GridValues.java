@@ -62,4 +62,27 @@ public record GridValues(String title, GridAxes axes, String valueDescription, d
     public int hashCode() {
         return java.util.Objects.hash(title, axes, valueDescription, Arrays.deepHashCode(values));
     }
+
+    /**
+     * The smallest and largest finite value over several grids, for one colour range shared by all
+     * (see {@link Figures#withColourRange}).
+     *
+     * @param grids the grids
+     * @return {min, max}, or {NaN, NaN} when no cell is finite
+     */
+    public static double[] range(java.util.Collection<GridValues> grids) {
+        double min = Double.POSITIVE_INFINITY;
+        double max = Double.NEGATIVE_INFINITY;
+        for (GridValues g : grids) {
+            for (double[] row : g.values) {
+                for (double v : row) {
+                    if (Double.isFinite(v)) {
+                        min = Math.min(min, v);
+                        max = Math.max(max, v);
+                    }
+                }
+            }
+        }
+        return min <= max ? new double[] {min, max} : new double[] {Double.NaN, Double.NaN};
+    }
 }

@@ -2,7 +2,6 @@ package reprise.output.figures;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
-import java.awt.Font;
 import java.util.ArrayList;
 import java.util.List;
 import org.knowm.xchart.XYChart;
@@ -22,15 +21,16 @@ import org.knowm.xchart.style.markers.SeriesMarkers;
  * on the plot and cannot change the axis ranges, but it shows its stroke in the legend.
  */
 final class Plot {
-    static final BasicStroke SOLID = new BasicStroke(2.2f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
-    static final BasicStroke DASHED = new BasicStroke(1.8f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
-        new float[] {9f, 6f}, 0f);
-    static final BasicStroke DOTTED = new BasicStroke(2.0f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND, 10f,
-        new float[] {1f, 5f}, 0f);
-    static final BasicStroke DASH_DOT = new BasicStroke(1.8f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
-        new float[] {10f, 4f, 2f, 4f}, 0f);
-    static final BasicStroke THIN = new BasicStroke(1.0f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
-    static final BasicStroke ERROR_BAR = new BasicStroke(1.3f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER);
+    /** Line styles at single-column size, in points; {@link FigureStyle#scaled} widens them for larger figures. */
+    static final BasicStroke SOLID = new BasicStroke(1.1f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
+    static final BasicStroke DASHED = new BasicStroke(0.9f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
+        new float[] {4f, 2.5f}, 0f);
+    static final BasicStroke DOTTED = new BasicStroke(1.1f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND, 10f,
+        new float[] {0.5f, 2.2f}, 0f);
+    static final BasicStroke DASH_DOT = new BasicStroke(0.9f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
+        new float[] {5f, 2f, 1f, 2f}, 0f);
+    static final BasicStroke THIN = new BasicStroke(0.5f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
+    static final BasicStroke ERROR_BAR = new BasicStroke(0.7f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER);
     static final BasicStroke[] LINE_STYLES = {SOLID, DASHED, DOTTED, DASH_DOT};
 
     /** Marker shapes, one per state CC, CD, DC, DD (or per series), distinguishable without colour. */
@@ -39,15 +39,17 @@ final class Plot {
         SeriesMarkers.OVAL};
 
     private final XYChart chart;
+    private final FigureStyle style;
     private final boolean logX;
     private final boolean logY;
     private final List<String> notes = new ArrayList<>();
     private int hiddenSeries;
     private int visibleSeries;
 
-    Plot(FigureStyle style, String title, String xTitle, String yTitle, boolean logX, boolean logY) {
-        this.logX = logX;
-        this.logY = logY;
+    Plot(FigureStyle style, String title, String xTitle, String yTitle, AxisScale x, AxisScale y) {
+        this.style = style;
+        this.logX = x.log();
+        this.logY = y.log();
         chart = new XYChart(style.width(), style.height());
         chart.setTitle(title);
         chart.setXAxisTitle(xTitle);
@@ -57,7 +59,23 @@ final class Plot {
         s.setDefaultSeriesRenderStyle(XYSeriesRenderStyle.Line);
         s.setXAxisLogarithmic(logX);
         s.setYAxisLogarithmic(logY);
-        s.setLegendPosition(Styler.LegendPosition.OutsideE);
+        legend(Styler.LegendPosition.InsideNE);
+    }
+
+    FigureStyle style() {
+        return style;
+    }
+
+    /** The stroke scaled to this figure's size. */
+    BasicStroke stroke(BasicStroke unit) {
+        return style.scaled(unit);
+    }
+
+    /** Puts the legend in a place; below the axes it runs in rows, so it takes height, not width. */
+    void legend(Styler.LegendPosition position) {
+        chart.getStyler().setLegendPosition(position);
+        chart.getStyler().setLegendLayout(position == Styler.LegendPosition.OutsideS
+            ? Styler.LegendLayout.Horizontal : Styler.LegendLayout.Vertical);
     }
 
     /**
@@ -171,7 +189,7 @@ final class Plot {
         s.setXYSeriesRenderStyle(XYSeriesRenderStyle.Line);
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(color);
-        s.setLineStyle(stroke);
+        s.setLineStyle(stroke(stroke));
         s.setShowInLegend(legendName != null);
         if (p[0].length == 1 && legendName == null) {
             // a single point of a line would be invisible; show it as a small mark instead
@@ -183,10 +201,12 @@ final class Plot {
     }
 
     /**
-     * Markers at the drawable estimates with their interval bars. The x positions of the markers and
-     * bars are {@code x[i] * dodgeFactor} on a log axis and {@code x[i] + dodgeOffset} on a linear one.
+     * Markers at the drawable estimates, at their true x, with their interval bars. A bar whose lower
+     * end cannot go on a log axis (zero or negative) is cut at the axis minimum of the markers / 10.
+     *
+     * @return the first marker drawn {x, y}, where a legend key of the same look can hide, or null if none
      */
-    boolean estimates(String legendName, String what, Estimates e, Color color, Marker marker, double dodge) {
+    double[] estimates(String legendName, String what, Estimates e, Color color, Marker marker) {
         double[] x = e.x();
         double[] est = e.estimate();
         double[] lo = e.lower();
@@ -208,13 +228,13 @@ final class Plot {
                 notPositive++;
                 continue;
             }
-            double xd = logX ? x[i] * dodge : x[i] + dodge;
+            double xd = x[i];
             kx[k] = xd;
             ky[k] = est[i];
             k++;
-            if (Double.isFinite(lo[i]) && Double.isFinite(hi[i]) && (!logY || lo[i] > 0)) {
+            if (Double.isFinite(lo[i]) && Double.isFinite(hi[i]) && (!logY || hi[i] > 0)) {
                 if (hi[i] > lo[i]) {
-                    bars.add(new double[] {xd, lo[i], hi[i]});
+                    bars.add(new double[] {xd, logY && !(lo[i] > 0) ? Double.NaN : lo[i], hi[i]});
                 }
             } else {
                 noBar++;
@@ -232,14 +252,21 @@ final class Plot {
         }
         if (k == 0) {
             notes.add(what + ": nothing drawn, no usable points");
-            return false;
+            return null;
+        }
+        double floor = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < k; i++) {
+            floor = Math.min(floor, ky[i] / 10);
         }
         for (double[] b : bars) {
+            if (Double.isNaN(b[1])) {
+                b[1] = Math.min(floor, b[2] / 10);
+            }
             XYSeries bar = chart.addSeries(name(null), new double[] {b[0], b[0]}, new double[] {b[1], b[2]});
             bar.setXYSeriesRenderStyle(XYSeriesRenderStyle.Line);
             bar.setMarker(SeriesMarkers.NONE);
             bar.setLineColor(color);
-            bar.setLineStyle(ERROR_BAR);
+            bar.setLineStyle(stroke(ERROR_BAR));
             bar.setShowInLegend(false);
         }
         XYSeries s = chart.addSeries(name(legendName), java.util.Arrays.copyOf(kx, k), java.util.Arrays.copyOf(ky, k));
@@ -248,7 +275,7 @@ final class Plot {
         s.setMarkerColor(color);
         s.setShowInLegend(legendName != null);
         visibleSeries++;
-        return true;
+        return new double[] {kx[0], ky[0]};
     }
 
     /** Markers joined by a line, for points already filtered with {@link #drawable}. */
@@ -258,9 +285,33 @@ final class Plot {
         s.setMarker(marker);
         s.setMarkerColor(color);
         s.setLineColor(color);
-        s.setLineStyle(stroke);
+        s.setLineStyle(stroke(stroke));
         s.setShowInLegend(legendName != null);
         visibleSeries++;
+    }
+
+    /**
+     * Names what the figure shows (pair, settings) in a line above the plot, in the axis-title size,
+     * unless the figure already has a title; nothing when {@code subject} is blank.
+     */
+    void heading(String subject) {
+        if (!subject.isEmpty() && chart.getTitle().isEmpty()) {
+            chart.setTitle(subject);
+            chart.getStyler().setChartTitleVisible(true);
+            chart.getStyler().setChartTitleFont(FigureStyle.font(style.axisTitleSize()));
+        }
+    }
+
+    /**
+     * A legend-only entry for a colour and marker (what a state or player looks like). Its one marker is
+     * drawn at {@code at}, which must be a marker of the same colour and shape already drawn, so that
+     * it adds nothing visible to the plot.
+     */
+    void markerKey(String legendName, Color color, Marker marker, double anchorX, double anchorY) {
+        XYSeries s = chart.addSeries(name(legendName), new double[] {anchorX}, new double[] {anchorY});
+        s.setXYSeriesRenderStyle(XYSeriesRenderStyle.Scatter);
+        s.setMarker(marker);
+        s.setMarkerColor(color);
     }
 
     /** A legend-only entry explaining a line style; see the implementation note. */
@@ -269,7 +320,7 @@ final class Plot {
         s.setXYSeriesRenderStyle(XYSeriesRenderStyle.Line);
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(color);
-        s.setLineStyle(stroke);
+        s.setLineStyle(stroke(stroke));
     }
 
     /** A filled polygon (x[0], y[0]) ... (x[m-1], y[m-1]), closed back to the start. */
@@ -290,7 +341,4 @@ final class Plot {
         return "\u200b" + (hiddenSeries++);
     }
 
-    static Font font(int size) {
-        return new Font(Font.SANS_SERIF, Font.PLAIN, size);
-    }
 }

@@ -27,7 +27,8 @@ import org.w3c.dom.Document;
 
 class FiguresTest {
     private static final byte[] PNG_SIGNATURE = {(byte) 0x89, 'P', 'N', 'G', '\r', '\n', 0x1a, '\n'};
-    private static final Figures FIGURES = Figures.withDefaults().withDpi(72);
+    private static final Figures FIGURES = Figures.withDefaults().withDpi(72).withFormats(FigureFormat.PNG,
+        FigureFormat.SVG);
 
     @TempDir
     Path dir;
@@ -98,12 +99,13 @@ class FiguresTest {
 
     @Test
     void pngHasTheNominalSizeTimesTheResolution() throws IOException {
-        // 800 x 560 points at 144 dpi is 2 x 72 dpi: 1600 x 1120 pixels (BitmapEncoder scales by dpi / 72)
+        // 8.5 x 6.4 cm is 241 x 181 points (72 / 2.54 points per cm, rounded); at 300 dpi BitmapEncoder
+        // scales by 300 / 72 and truncates: 1004 x 754 pixels
         Path png = Figures.withDefaults().withFormats(FigureFormat.PNG)
             .payoffByContinuation(dir, "size", SampleData.payoff(3)).files().get(0);
         BufferedImage image = ImageIO.read(png.toFile());
-        assertEquals(1600, image.getWidth());
-        assertEquals(1120, image.getHeight());
+        assertEquals(1004, image.getWidth());
+        assertEquals(754, image.getHeight());
     }
 
     @Test
@@ -144,9 +146,9 @@ class FiguresTest {
         FigureResult r = FIGURES.errorScaling(dir, "err", data);
         assertValidSvg(r.files().get(1));
         assertEquals(List.of(
-            "observed error: 2 of 4 points dropped (zero or negative values cannot be shown on a log axis)",
             "exact bias: 1 of 4 points skipped (NaN or infinite)",
-            "exact bias: 1 of 4 points dropped (zero or negative values cannot be shown on a log axis)"), r.notes());
+            "exact bias: 1 of 4 points dropped (zero or negative values cannot be shown on a log axis)",
+            "observed error: 2 of 4 points dropped (zero or negative values cannot be shown on a log axis)"), r.notes());
     }
 
     @Test
@@ -200,9 +202,11 @@ class FiguresTest {
                 "value heatmap has no finite value to draw: all 1 cells are NaN or infinite"),
             Arguments.of("unsafe base name", (Runnable) () -> FIGURES.payoffByContinuation(Path.of("unused"), "a/b",
                 SampleData.payoff(3)), "figure base name must be a safe file name without extension "
-                    + "(use FileNames.safe): a/b"),
-            Arguments.of("tiny figure", (Runnable) () -> Figures.withDefaults().withSize(10, 10),
-                "figure size must be between 200 x 150 and 10000 x 10000 points: 10 x 10"),
+                    + "(use FileNames.readable or FileNames.safe): a/b"),
+            Arguments.of("tiny figure", (Runnable) () -> Figures.withDefaults().withSize(FigureSize.custom(1, 1)),
+                "figure size must be between 4 x 3 cm and 60 x 60 cm: 1.0 x 1.0 cm"),
+            Arguments.of("unknown size", (Runnable) () -> FigureSize.parse("quarter"),
+                "figure size must be single, double or WIDTHxHEIGHT in cm (e.g. 12x8): quarter"),
             Arguments.of("zero dpi", (Runnable) () -> Figures.withDefaults().withDpi(0),
                 "PNG resolution must be between 72 and 1200 dpi: 0"));
     }
@@ -282,6 +286,8 @@ class FiguresTest {
         Document doc = f.newDocumentBuilder().parse(svg.toFile());
         assertEquals("svg", doc.getDocumentElement().getLocalName() == null
             ? doc.getDocumentElement().getTagName() : doc.getDocumentElement().getLocalName());
-        assertTrue(text.contains("<path"), "SVG draws nothing");
+        assertTrue(text.contains("<path") || text.contains("<polyline") || text.contains("<line"),
+            "SVG draws nothing");
+        assertTrue(text.contains("<text"), "SVG has no text elements");
     }
 }
