@@ -1,6 +1,7 @@
 package reprise.run;
 
 import java.io.IOException;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -18,6 +19,8 @@ public final class OutputFolder {
         "run.json");
     /** The folder of shard files inside the output folder. */
     public static final String SHARDS = "shards";
+    /** The longest name of one folder that common file systems (ext4, XFS, NTFS, APFS) allow, in bytes. */
+    static final int MOST_NAME_BYTES = 255;
 
     private OutputFolder() {
     }
@@ -34,9 +37,18 @@ public final class OutputFolder {
      * @throws IllegalArgumentException one line, naming {@code where}
      */
     public static void check(String where, Path dir, boolean force, boolean resume) {
+        if (dir.toString().isBlank()) {
+            throw new IllegalArgumentException(where + ": must name a folder, not be empty");
+        }
         Path target = dir.toAbsolutePath().normalize();
         Path existing = target;
         while (existing != null && !Files.exists(existing)) {
+            String name = existing.getFileName() == null ? "" : existing.getFileName().toString();
+            int bytes = name.getBytes(StandardCharsets.UTF_8).length;
+            if (bytes > MOST_NAME_BYTES) {
+                throw new IllegalArgumentException(where + ": " + dir + " cannot be created: a folder name of " + bytes
+                    + " bytes is longer than file systems allow (" + MOST_NAME_BYTES + ")");
+            }
             existing = existing.getParent();
         }
         if (existing == null) {
