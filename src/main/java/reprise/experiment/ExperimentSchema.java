@@ -337,8 +337,11 @@ final class ExperimentSchema {
             Path claims = base.resolve(claimsText).normalize();
             if (Files.isDirectory(claims)) {
                 problems.add(line("claims"), "claims", "is a folder, not a claims file: " + claims);
-            } else if (!Files.isRegularFile(claims)) {
+            } else if (!Files.exists(claims)) {
                 problems.add(line("claims"), "claims", "no such file: " + claims);
+            } else if (!Files.isRegularFile(claims)) {
+                problems.add(line("claims"), "claims", "is not a regular file (a device or pipe?), not a claims file: "
+                    + claims);
             }
             builder.claims = claims;
         }

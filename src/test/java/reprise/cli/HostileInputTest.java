@@ -118,13 +118,28 @@ class HostileInputTest {
     }
 
     /** {@code --out ''} once wrote the results into the current folder and printed "results in ". */
-    @Test
-    void anEmptyOutputOptionIsRefused() {
-        Run r = run("check", "src/test/resources/reprise/ok/tiny.yaml", "--out", "", "--quiet");
+    @ParameterizedTest
+    @MethodSource("emptyPaths")
+    void anEmptyPathOptionIsRefused(String[] args, String option) {
+        Run r = run(args);
         assertEquals(Main.BAD_INPUT, r.code(), r.err());
-        assertEquals("reprise check: src/test/resources/reprise/ok/tiny.yaml: --out: must name a folder, not be empty",
-            r.err().strip());
+        assertEquals(1, r.err().strip().lines().count(), r.err());
+        assertTrue(r.err().startsWith("reprise " + args[0] + ": Invalid value for " + option + ": must name a file or "
+            + "folder, not be empty"), r.err());
         assertEquals("", r.out());
+    }
+
+    static Stream<Arguments> emptyPaths() {
+        String tiny = "src/test/resources/reprise/ok/tiny.yaml";
+        return Stream.of(
+            Arguments.of(new String[] {"check", tiny, "--out", "", "--quiet"}, "option '--out'"),
+            Arguments.of(new String[] {"check", tiny, "--out", "  ", "--quiet"}, "option '--out'"),
+            Arguments.of(new String[] {"check", ""}, "positional parameter at index 0 (FILE)"),
+            Arguments.of(new String[] {"calibrate", "--x", "tft", "--y", "gtft", "--rounds", "10", "--repetitions", "5",
+                "--out", ""}, "option '--out'"),
+            Arguments.of(new String[] {"slurm-script", tiny, "--tasks", "2", "--out", ""}, "option '--out'"),
+            Arguments.of(new String[] {"slurm-script", tiny, "--tasks", "2", "--script", ""}, "option '--script'"),
+            Arguments.of(new String[] {"merge", "", "--out", "x"}, "positional parameter at index 0 (DIR)"));
     }
 
     /**
