@@ -36,7 +36,7 @@ import reprise.output.AtomicFiles;
  * releases the lock when its process ends however it ends (kill -9 included), so a lock file left by a
  * process that is gone is simply taken over. The file itself stays (deleting it would let a third run
  * lock a new file while a second still holds the old one). Shard runs write only their own shard file
- * and take no folder lock.
+ * and take no folder lock. On a file system that offers no locks at all, the run goes on unlocked.
  */
 public final class OutputFolder {
 
@@ -232,20 +232,34 @@ public final class OutputFolder {
                 ch = FileChannel.open(file, StandardOpenOption.CREATE, StandardOpenOption.READ,
                     StandardOpenOption.WRITE);
                 FileLock l;
+                boolean held;
                 try {
                     l = ch.tryLock();
+                    held = l == null;
                 } catch (OverlappingFileLockException ex) {
                     l = null;
+                    held = true;
+                } catch (IOException ex) {
+                    // a file system without locks (Lustre without flock, NFS without a lock service):
+                    // refusing every run there would be worse than running unlocked
+                    l = null;
+                    held = false;
                 }
-                if (l == null) {
+                if (held) {
                     ch.close();
                     throw new IllegalArgumentException(where + ": " + dir + " is in use by another run (" + holder(file)
                         + "); wait for it to end, or use another folder");
                 }
                 return new Lock(file, ch, l);
-            } catch (IOException | UnsupportedOperationException ex) {
+            } catch (java.nio.file.AccessDeniedException | UnsupportedOperationException ex) {
                 closeQuietly(ch);
-                throw new IllegalArgumentException(where + ": cannot lock " + file + ": " + ex.getMessage(), ex);
+                throw new IllegalArgumentException(where + ": cannot lock " + file + ": " + (ex instanceof IOException
+                    ? "permission denied" : ex.getMessage()), ex);
+            } catch (IOException ex) {
+                closeQuietly(ch);
+                String m = String.valueOf(ex.getMessage());
+                throw new UncheckedIOException("cannot write " + file + ": " + (m.contains("No space left on device")
+                    ? "no space left on device" : m), ex);
             }
         }
 
@@ -259,7 +273,9 @@ public final class OutputFolder {
                 channel.write(ByteBuffer.wrap(text.getBytes(StandardCharsets.UTF_8)), 0);
                 channel.force(false);
             } catch (IOException ex) {
-                throw new UncheckedIOException("cannot write " + file + ": " + ex.getMessage(), ex);
+                String m = String.valueOf(ex.getMessage());
+                throw new UncheckedIOException("cannot write " + file + ": " + (m.contains("No space left on device")
+                    ? "no space left on device" : m), ex);
             }
         }
 
@@ -307,7 +323,9 @@ public final class OutputFolder {
         @Override
         public void close() {
             try {
-                lock.release();
+                if (lock != null) {
+                    lock.release();
+                }
             } catch (IOException ex) {
                 // the lock goes with the channel below in any case
             }
