@@ -107,6 +107,11 @@ public final class OutputFolder {
                     + "file of that name");
             }
         }
+        if (Files.exists(dir.resolve(LOCK), LinkOption.NOFOLLOW_LINKS) && !Files.isRegularFile(dir.resolve(LOCK),
+            LinkOption.NOFOLLOW_LINKS)) {
+            throw new IllegalArgumentException(where + ": " + dir.resolve(LOCK) + " is not a regular file; the run keeps "
+                + "its lock in a file of that name");
+        }
         for (String name : List.of("figures", Checkpoint.FOLDER)) {
             if (Files.exists(dir.resolve(name)) && !Files.isDirectory(dir.resolve(name))) {
                 throw new IllegalArgumentException(where + ": " + dir.resolve(name) + " is a file; the run needs a "
@@ -303,11 +308,12 @@ public final class OutputFolder {
         /** @return e.g. "pid 4242 on host node7, started 2026-12-02T14:55:00Z", from the lock file */
         static String holder(Path file) {
             Map<String, String> f = new HashMap<>();
-            try {
-                for (String line : Files.readAllLines(file, StandardCharsets.UTF_8)) {
+            try (java.io.InputStream in = Files.newInputStream(file)) {
+                String text = new String(in.readNBytes(4096), StandardCharsets.UTF_8);
+                for (String line : text.split("\n")) {
                     int sp = line.indexOf(' ');
-                    if (sp > 0) {
-                        f.put(line.substring(0, sp), line.substring(sp + 1).strip());
+                    if (sp > 0 && line.length() < 200) {
+                        f.put(line.substring(0, sp), line.substring(sp + 1).strip().replaceAll("\\p{Cntrl}", "?"));
                     }
                 }
             } catch (IOException | RuntimeException ex) {

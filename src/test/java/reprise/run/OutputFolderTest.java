@@ -77,4 +77,14 @@ class OutputFolderTest {
         OutputFolder.open("--out", dir, false, false, null).close();
         assertTrue(Files.exists(dir.resolve(OutputFolder.LOCK)));
     }
+
+    /** A folder where the lock file belongs is bad input (exit 2), found before anything is written. */
+    @Test
+    void aFolderInPlaceOfTheLockFileIsRefused() throws IOException {
+        Path dir = Files.createDirectories(tmp.resolve("odd").resolve(OutputFolder.LOCK)).getParent();
+        IllegalArgumentException ex = assertThrows(IllegalArgumentException.class,
+            () -> OutputFolder.check("--out", dir, false, false));
+        assertEquals("--out: " + dir.resolve(OutputFolder.LOCK) + " is not a regular file; the run keeps its lock in a "
+            + "file of that name", ex.getMessage());
+    }
 }
