@@ -7,6 +7,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
@@ -183,6 +184,9 @@ public final class UnitFile {
      */
     public static Content read(Path file, String kind) {
         JsonNode o;
+        if (Files.exists(file) && !Files.isRegularFile(file)) {
+            throw new IllegalArgumentException(file + ": is not a regular file, not a " + kind);
+        }
         try {
             o = MAPPER.readTree(file.toFile());
         } catch (JsonProcessingException ex) {
