@@ -87,6 +87,7 @@ public final class Main implements Runnable {
         CommandLine cl = new CommandLine(new Main());
         cl.getSubcommands().get("calibrate").getCommandSpec().resourceBundle(new CalibrateCommand.Help());
         cl.setCaseInsensitiveEnumValuesAllowed(true);
+        cl.registerConverter(java.nio.file.Path.class, Main::path);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             PrintWriter err = commandLine.getErr();
             if (ex instanceof IllegalArgumentException
@@ -119,6 +120,17 @@ public final class Main implements Runnable {
             return BAD_INPUT;
         });
         return cl;
+    }
+
+    /**
+     * Every path on the command line (files, --out, --script, --merge): an empty one is refused, since it
+     * would silently mean the current folder.
+     */
+    private static java.nio.file.Path path(String text) {
+        if (text.isBlank()) {
+            throw new CommandLine.TypeConversionException("must name a file or folder, not be empty");
+        }
+        return java.nio.file.Path.of(text);
     }
 
     /**

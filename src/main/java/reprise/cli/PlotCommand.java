@@ -1,5 +1,7 @@
 package reprise.cli;
 
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -9,6 +11,8 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
+import reprise.experiment.Curves;
+import reprise.experiment.InputFiles;
 import reprise.output.CurvesCsv;
 import reprise.output.Plotter;
 import reprise.output.figures.FigureFormat;
@@ -50,9 +54,10 @@ final class PlotCommand implements Callable<Integer> {
         }
         List<Plotter.Drawn> drawn = new java.util.ArrayList<>();
         if (Files.isRegularFile(curves)) {
-            drawn.addAll(Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures"), figures()));
+            drawn.addAll(Plotter.draw(readCurves(curves), dir.resolve("figures"), figures()));
         }
         if (Files.isRegularFile(calibration)) {
+            text(calibration, "calibration file");
             drawn.add(Plotter.drawCalibration(calibration, dir.resolve("figures")));
         }
         for (Plotter.Drawn d : drawn) {
@@ -67,5 +72,32 @@ final class PlotCommand implements Callable<Integer> {
         List<FigureFormat> formats = figureFormats.stream().map(FigureFormat::parse).toList();
         return Figures.withDefaults().withSize(FigureSize.parse(figureSize)).withDpi(dpi)
             .withFormats(formats.get(0), formats.subList(1, formats.size()).toArray(FigureFormat[]::new));
+    }
+
+    /**
+     * Reads curves.csv, refusing in one line a file that is not one: binary or not UTF-8, too large, or
+     * text that does not parse as the curves table.
+     */
+    private static List<Curves.Point> readCurves(Path curves) {
+        text(curves, "curves file");
+        try {
+            return CurvesCsv.read(curves);
+        } catch (IllegalArgumentException e) {
+            throw e;
+        } catch (RuntimeException e) {
+            throw new IllegalArgumentException(curves + ": not a curves file written by check: "
+                + String.valueOf(e.getMessage()).replaceAll("\\s+", " "), e);
+        }
+    }
+
+    /** Checks that an input file is a regular UTF-8 text file of sensible size, naming it otherwise. */
+    private static void text(Path file, String what) {
+        try {
+            InputFiles.text(file, what);
+        } catch (IllegalArgumentException e) {
+            throw new IllegalArgumentException(file + ": " + e.getMessage(), e);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot read " + file + ": " + e.getMessage(), e);
+        }
     }
 }

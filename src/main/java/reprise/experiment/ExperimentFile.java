@@ -2,8 +2,6 @@ package reprise.experiment;
 
 import java.io.IOException;
 import java.math.BigDecimal;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
@@ -33,18 +31,20 @@ public final class ExperimentFile {
     public static Experiment read(Path file) {
         Problems problems = new Problems(file.toString());
         byte[] bytes;
+        String text;
         try {
-            if (Files.isDirectory(file)) {
-                problems.add(0, "file", "is a folder, not an experiment file");
-                problems.throwIfAny();
-            }
-            bytes = Files.readAllBytes(file);
+            bytes = InputFiles.bytes(file, "experiment file", InputFiles.MOST_EXPERIMENT_BYTES);
+            text = InputFiles.decode(bytes, "experiment file");
+        } catch (IllegalArgumentException e) {
+            problems.add(0, "file", e.getMessage());
+            problems.throwIfAny();
+            throw new IllegalStateException(e);
         } catch (IOException e) {
             problems.add(0, "file", "cannot be read: " + e.getMessage());
             problems.throwIfAny();
             throw new IllegalStateException(e);
         }
-        return parse(file, new String(bytes, StandardCharsets.UTF_8), sha256(bytes), problems);
+        return parse(file, text, sha256(bytes), problems);
     }
 
     static Experiment parse(Path file, String text, String hash, Problems problems) {

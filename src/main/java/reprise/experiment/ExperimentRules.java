@@ -2,9 +2,11 @@ package reprise.experiment;
 
 import java.util.ArrayList;
 import java.util.Collections;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Set;
 import reprise.game.Horizon;
 import reprise.game.Player;
 import reprise.game.Strategies;
@@ -23,6 +25,12 @@ final class ExperimentRules {
      * the expected sum must stay below a quarter of that, so that a long tail does not reach it.
      */
     static final double SUM_OF_SQUARES_LIMIT = Long.MAX_VALUE / 4.0;
+    /**
+     * The most cases one experiment may expand into. The count is the product of the grid's axis sizes,
+     * taken before anything is expanded, so that a short file describing a huge grid is refused at once
+     * (each case costs an exact chain, a simulation and rows in every output file).
+     */
+    static final long MOST_CASES = 100_000;
 
     private ExperimentRules() {
     }
@@ -48,9 +56,37 @@ final class ExperimentRules {
                 + "stands for each case's continuation probability");
         }
         placeholders(b.pairs, b.parameters, b.continuation(), schema.line("grid"), problems);
-        if (b.game != null) {
+        double cases = caseCount(b);
+        if (cases > MOST_CASES) {
+            problems.add(schema.line("grid"), "grid", String.format(Locale.ROOT, "expands into %s cases (pairs x "
+                + "values of the parameters each pair uses x noise x misperception x game lengths); at most %d cases "
+                + "in one experiment: use fewer values, or split the grid over several files",
+                cases < 1e15 ? Long.toString((long) cases) : String.format(Locale.ROOT, "%.3g", cases), MOST_CASES));
+        } else if (b.game != null) {
             strategies(b, problems);
         }
+    }
+
+    /**
+     * The number of cases the grid expands into, from the axis sizes alone (nothing is expanded): for each
+     * pair, the product of the sizes of the parameters it uses, times noise, misperception and game-length
+     * values. A double, so that no product overflows; exact up to 2^53.
+     */
+    static double caseCount(Experiment.Builder b) {
+        double perPair = (double) Math.max(1, b.noise.size()) * Math.max(1, b.misperception.size())
+            * Math.max(1, b.horizons.size());
+        double total = 0;
+        for (Experiment.Pair p : b.pairs) {
+            double points = perPair;
+            for (String ph : Grid.placeholders(p.x() + " " + p.y())) {
+                List<Double> axis = b.parameters.get(ph);
+                if (axis != null) {
+                    points *= Math.max(1, axis.size());
+                }
+            }
+            total += points;
+        }
+        return total;
     }
 
     /** Burn-in, snapshots and the sums of squared counts against the game lengths. */
@@ -112,16 +148,16 @@ final class ExperimentRules {
      * problems of the file; pairs whose placeholders lack a parameter are left to placeholders.
      */
     private static void strategies(Experiment.Builder b, Problems problems) {
-        List<Map<String, Double>> points = Grid.parameterPoints(b.parameters);
         List<Horizon> hs = b.horizons.isEmpty() ? Collections.singletonList(null) : b.horizons;
         for (Experiment.Pair p : b.pairs) {
-            boolean defined = Grid.placeholders(p.x() + " " + p.y()).stream()
+            List<String> used = Grid.placeholders(p.x() + " " + p.y());
+            boolean defined = used.stream()
                 .allMatch(ph -> b.parameters.containsKey(ph) || ph.equals(Grid.CONTINUATION) && b.continuation());
             if (!defined) {
                 continue;
             }
-            List<String> seen = new ArrayList<>();
-            for (Map<String, Double> point : points) {
+            Set<String> seen = new HashSet<>();
+            for (Map<String, Double> point : Grid.parameterPoints(Grid.usedAxes(b.parameters, p))) {
                 for (Horizon h : hs) {
                     Map<String, Double> values = Grid.withHorizon(point, h);
                     spec(Grid.substitute(p.x(), values), b, Player.X, seen, p, "x", problems);
@@ -131,12 +167,11 @@ final class ExperimentRules {
         }
     }
 
-    private static void spec(String spec, Experiment.Builder b, Player player, List<String> seen, Experiment.Pair p,
+    private static void spec(String spec, Experiment.Builder b, Player player, Set<String> seen, Experiment.Pair p,
         String field, Problems problems) {
-        if (seen.contains(field + spec)) {
+        if (!seen.add(field + spec)) {
             return;
         }
-        seen.add(field + spec);
         try {
             Strategies.parse(spec, b.game, player);
         } catch (IllegalArgumentException ex) {

@@ -30,6 +30,11 @@ final class ExperimentSchema {
     private static final Pattern NAME = Pattern.compile("[A-Za-z0-9][A-Za-z0-9._-]*");
     /** The most games per case. */
     static final long MAX_REPLICATES = 1L << 40;
+    /**
+     * The longest experiment name: it names the output folder (results/NAME), and file systems allow
+     * 255 bytes per name; a hundred characters is more than any readable name needs.
+     */
+    static final int MOST_NAME_LENGTH = 100;
 
     private final Problems problems;
     private final Map<String, Node> top;
@@ -90,6 +95,9 @@ final class ExperimentSchema {
         } else if (!NAME.matcher(name).matches()) {
             problems.add(line("experiment"), "experiment",
                 "must be letters, digits, '.', '_' or '-' (it names the output folder): '" + name + "'");
+        } else if (name.length() > MOST_NAME_LENGTH) {
+            problems.add(line("experiment"), "experiment", "is " + name.length() + " characters long; at most "
+                + MOST_NAME_LENGTH + " (it names the output folder)");
         }
         builder.name = name;
         builder.description = YamlReader.string(top, "description", "", problems);
@@ -195,6 +203,8 @@ final class ExperimentSchema {
                     values.add(d);
                 }
             }
+            YamlReader.duplicates(values.stream().map(ExperimentFile::num).toList(), YamlReader.line(t.getValueNode()),
+                "grid.parameters." + key, problems);
             if (parameters.containsKey(key)) {
                 problems.add(YamlReader.line(t.getKeyNode()), "grid.parameters." + key, "is given twice");
             }
@@ -255,6 +265,9 @@ final class ExperimentSchema {
         } else if (!NAME.matcher(name).matches()) {
             problems.add(YamlReader.line(f.get("name")), "pairs.name", "must be letters, digits, '.', '_' or '-': '"
                 + name + "'");
+        } else if (name.length() > MOST_NAME_LENGTH) {
+            problems.add(YamlReader.line(f.get("name")), "pairs.name", "is " + name.length() + " characters long; at "
+                + "most " + MOST_NAME_LENGTH + " (it names the case's figures)");
         } else if (names.contains(name)) {
             problems.add(YamlReader.line(f.get("name")), "pairs.name", "duplicate case name '" + name + "'");
         }
@@ -324,12 +337,20 @@ final class ExperimentSchema {
             Path claims = base.resolve(claimsText).normalize();
             if (Files.isDirectory(claims)) {
                 problems.add(line("claims"), "claims", "is a folder, not a claims file: " + claims);
-            } else if (!Files.isRegularFile(claims)) {
+            } else if (!Files.exists(claims)) {
                 problems.add(line("claims"), "claims", "no such file: " + claims);
+            } else if (!Files.isRegularFile(claims)) {
+                problems.add(line("claims"), "claims", "is not a regular file (a device or pipe?), not a claims file: "
+                    + claims);
             }
             builder.claims = claims;
         }
         String outText = YamlReader.string(top, "output", null, problems);
+        if (outText != null && outText.isBlank()) {
+            problems.add(line("output"), "output", "must name a folder, not be empty (without output:, results "
+                + "go to results/NAME)");
+            outText = null;
+        }
         builder.output = Path.of(outText != null ? outText
             : "results/" + (builder.name == null ? "experiment" : builder.name));
     }

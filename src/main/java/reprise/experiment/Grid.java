@@ -22,22 +22,8 @@ final class Grid {
 
     static List<Case> expand(Experiment e) {
         List<Case> out = new ArrayList<>();
-        List<Map<String, Double>> points = parameterPoints(e.parameters());
         for (Experiment.Pair pair : e.pairs()) {
-            List<String> used = placeholders(pair.x() + " " + pair.y());
-            List<Map<String, Double>> own = new ArrayList<>();
-            for (Map<String, Double> p : points) {
-                Map<String, Double> sub = new LinkedHashMap<>();
-                p.forEach((k, v) -> {
-                    if (used.contains(k)) {
-                        sub.put(k, v);
-                    }
-                });
-                if (!own.contains(sub)) {
-                    own.add(sub);
-                }
-            }
-            for (Map<String, Double> params : own) {
+            for (Map<String, Double> params : parameterPoints(usedAxes(e.parameters(), pair))) {
                 for (String noise : e.noise()) {
                     for (String mis : e.misperception()) {
                         for (Horizon h : e.horizons()) {
@@ -66,6 +52,22 @@ final class Grid {
             }
         }
         return List.copyOf(out);
+    }
+
+    /**
+     * The parameter axes a pair's strategies use, in the grid's order. Their points, first axis outermost,
+     * are the pair's parameter points: the same, in the same order, as the distinct projections of the
+     * points of all axes, without forming those (whose number is the product of every axis's size).
+     */
+    static Map<String, List<Double>> usedAxes(Map<String, List<Double>> axes, Experiment.Pair pair) {
+        List<String> used = placeholders(pair.x() + " " + pair.y());
+        Map<String, List<Double>> own = new LinkedHashMap<>();
+        axes.forEach((k, v) -> {
+            if (used.contains(k)) {
+                own.put(k, v);
+            }
+        });
+        return own;
     }
 
     /** The name under which a case's continuation probability can be written into a strategy spec. */

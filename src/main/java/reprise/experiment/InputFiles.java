@@ -12,14 +12,19 @@ import java.util.Locale;
 
 /**
  * Reads the user's input files (experiments, claims) with the checks that keep a wrong path from costing
- * time or memory: the path must be a regular file, at most {@value #MOST_BYTES} bytes (checked before
- * reading, and again while reading, for files that grow or special files that report no size), UTF-8 text
- * without NUL bytes. A UTF-8 byte-order mark, as spreadsheet programs write it, is dropped.
+ * time or memory: the path must be a regular file, at most a stated number of bytes ({@value #MOST_BYTES}
+ * for claims, {@value #MOST_EXPERIMENT_BYTES} for experiment files; checked before reading, and again while
+ * reading, for files that grow or special files that report no size), UTF-8 text without NUL bytes. A UTF-8 byte-order mark, as spreadsheet programs write it, is dropped.
  */
 public final class InputFiles {
 
     /** The largest input file read: far more than any experiment or claims file needs (16 MiB). */
     public static final int MOST_BYTES = 16 << 20;
+    /**
+     * The largest experiment file read (1 MiB): a hand-written experiment is a few kilobytes, and a larger
+     * one is refused before YAML parsing spends time and memory on it.
+     */
+    public static final int MOST_EXPERIMENT_BYTES = 1 << 20;
 
     private InputFiles() {
     }
@@ -38,7 +43,8 @@ public final class InputFiles {
     }
 
     /**
-     * The bytes of an input file, after the checks of the class description.
+     * The bytes of an input file of at most {@value #MOST_BYTES} bytes, after the checks of the class
+     * description.
      *
      * @param file the path
      * @param what what the file is, for messages
@@ -47,6 +53,20 @@ public final class InputFiles {
      * @throws IOException when reading fails for another reason
      */
     public static byte[] bytes(Path file, String what) throws IOException {
+        return bytes(file, what, MOST_BYTES);
+    }
+
+    /**
+     * The bytes of an input file, after the checks of the class description.
+     *
+     * @param file the path
+     * @param what what the file is, for messages
+     * @param most the largest size accepted, in bytes
+     * @return the bytes
+     * @throws IllegalArgumentException with a one-line reason
+     * @throws IOException when reading fails for another reason
+     */
+    public static byte[] bytes(Path file, String what, int most) throws IOException {
         if (Files.isDirectory(file)) {
             throw new IllegalArgumentException("is a folder, not " + article(what));
         }
@@ -57,13 +77,13 @@ public final class InputFiles {
             throw new IllegalArgumentException("is not a regular file (a device or pipe?), not " + article(what));
         }
         long size = Files.size(file);
-        if (size > MOST_BYTES) {
-            throw new IllegalArgumentException(tooLarge(size, what));
+        if (size > most) {
+            throw new IllegalArgumentException(tooLarge(size, what, most));
         }
         try (InputStream in = Files.newInputStream(file)) {
-            byte[] b = in.readNBytes(MOST_BYTES + 1);
-            if (b.length > MOST_BYTES) {
-                throw new IllegalArgumentException(tooLarge(b.length, what));
+            byte[] b = in.readNBytes(most + 1);
+            if (b.length > most) {
+                throw new IllegalArgumentException(tooLarge(b.length, what, most));
             }
             return b;
         }
@@ -94,9 +114,9 @@ public final class InputFiles {
         return text.startsWith("\ufeff") ? text.substring(1) : text;
     }
 
-    private static String tooLarge(long size, String what) {
+    private static String tooLarge(long size, String what, int most) {
         return String.format(Locale.ROOT, "is too large for %s (%d bytes; at most %d)", article(what), size,
-            MOST_BYTES);
+            most);
     }
 
     private static String article(String what) {

@@ -6,6 +6,7 @@ import java.io.StringReader;
 import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.EnumSet;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
@@ -161,10 +162,19 @@ final class YamlReader {
 
     /** A whole number (underscores allowed, "1e3" too), or null after reporting. */
     static Long asLong(Scalar s, String field, Problems problems) {
+        BigDecimal d;
         try {
-            return new BigDecimal(s.text().trim().replace("_", "")).longValueExact();
-        } catch (NumberFormatException | ArithmeticException e) {
+            d = new BigDecimal(s.text().trim().replace("_", ""));
+        } catch (NumberFormatException e) {
             problems.add(s.line(), field, "must be a whole number: '" + s.text() + "'");
+            return null;
+        }
+        try {
+            return d.longValueExact();
+        } catch (ArithmeticException e) {
+            boolean whole = d.signum() == 0 || d.stripTrailingZeros().scale() <= 0;
+            problems.add(s.line(), field, whole ? "is out of the 64-bit range [" + Long.MIN_VALUE + ", " + Long.MAX_VALUE
+                + "]: '" + s.text() + "'" : "must be a whole number: '" + s.text() + "'");
             return null;
         }
     }
@@ -232,14 +242,14 @@ final class YamlReader {
         return set;
     }
 
-    /** Reports each value that appears a second time, at the list's line. */
+    /** Reports once each value that appears more than once, at the list's line (linear time, for long lists). */
     static void duplicates(List<String> values, int line, String field, Problems problems) {
-        List<String> seen = new ArrayList<>();
+        Set<String> seen = new HashSet<>();
+        Set<String> reported = new HashSet<>();
         for (String v : values) {
-            if (seen.contains(v)) {
+            if (!seen.add(v) && reported.add(v)) {
                 problems.add(line, field, "value " + v + " is listed twice");
             }
-            seen.add(v);
         }
     }
 

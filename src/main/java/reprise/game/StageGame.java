@@ -32,6 +32,18 @@ public record StageGame(String label, double[] payoffX, double[] payoffY) {
     public static final StageGame DEFAULT = symmetric(3, 0, 5, 1);
 
     /**
+     * The largest payoff magnitude accepted, 1e100; a non-zero payoff must also be at least 1e-100 in
+     * magnitude. Payoffs enter squares and products: the exact side forms variances of per-game payoff
+     * totals, (L max|u|)^2 summed over states, and the simulated side the sums over games of squared
+     * totals, G (L max|u|)^2, whose decimal value becomes a double. The run layer keeps G L^2 below
+     * about 2.3e18, so a magnitude of 1e100 keeps every such square below about 1e219 (and every
+     * non-zero one above 1e-200), far inside the range of a double (about 1.8e308 down to 4.9e-324),
+     * with room for the differences, sums and constant factors of the tests. Larger or tinier payoffs
+     * would overflow or underflow partway and turn standard errors into infinity or zero; rescale them.
+     */
+    public static final double MOST_PAYOFF_MAGNITUDE = 1e100;
+
+    /**
      * Validates and copies the payoffs.
      *
      * @param label a short description
@@ -50,6 +62,10 @@ public record StageGame(String label, double[] payoffX, double[] payoffY) {
         }
         for (double d : v) {
             Checks.finite(name, d);
+            if (Math.abs(d) > MOST_PAYOFF_MAGNITUDE || d != 0 && Math.abs(d) < 1 / MOST_PAYOFF_MAGNITUDE) {
+                throw new IllegalArgumentException(name + " must be 0 or of magnitude between 1e-100 and 1e100 (its "
+                    + "squares and products must stay within the range of a double; rescale the payoffs): " + d);
+            }
         }
         return v.clone();
     }

@@ -40,6 +40,13 @@ public final class AtomicFiles {
         void write(Path temporary) throws IOException;
     }
 
+    /**
+     * A hook for fault tests, read only here: with this system property set to a file name, writing a
+     * file of that name fails partway, after some of its content, as a full disk fails
+     * ({@code No space left on device}). Without the property (the normal case) nothing happens.
+     */
+    static final String FAIL_PROPERTY = "reprise.output.failWriting";
+
     private AtomicFiles() {
     }
 
@@ -70,6 +77,7 @@ public final class AtomicFiles {
             createFolders(dir);
             tmp = createTemporary(dir, target.getFileName().toString());
             content.write(tmp);
+            failIfTold(target, tmp);
             try {
                 Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
             } catch (AtomicMoveNotSupportedException e) {
@@ -86,6 +94,18 @@ public final class AtomicFiles {
                     // the temporary file is hidden and named .partial; nothing more can be done here
                 }
             }
+        }
+    }
+
+    private static void failIfTold(Path target, Path tmp) throws IOException {
+        String name = System.getProperty(FAIL_PROPERTY);
+        if (name != null && name.equals(target.getFileName().toString())) {
+            long size = Files.size(tmp);
+            try (java.nio.channels.FileChannel ch = java.nio.channels.FileChannel.open(tmp,
+                java.nio.file.StandardOpenOption.WRITE)) {
+                ch.truncate(size / 2);
+            }
+            throw new IOException(tmp + ": No space left on device");
         }
     }
 

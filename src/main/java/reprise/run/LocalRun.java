@@ -12,7 +12,8 @@ import reprise.sim.SimulationResult;
 import reprise.sim.Simulator;
 
 /**
- * An unsharded run on this machine: checks the output folder, resumes or clears its checkpoint,
+ * An unsharded run on this machine: checks and locks the output folder (held until the last file is
+ * written, see {@link OutputFolder}), resumes or clears its checkpoint,
  * simulates every unit not yet done (saving each in the checkpoint as soon as it is finished), joins the
  * units case by case, analyses and writes the output files, then deletes the checkpoint.
  */
@@ -34,11 +35,41 @@ public final class LocalRun {
         Instant start = Instant.now();
         Path dir = settings.folder(job);
         String where = job.file() + ": " + (settings.out() != null ? "--out" : "output");
-        OutputFolder.check(where, dir, settings.force(), settings.resume());
         Checkpoint checkpoint = Checkpoint.of(dir);
         List<WorkPlan.Unit> units = job.units();
         RunIdentity identity = job.identity(settings.toolVersion());
         Map<WorkPlan.Unit, SimulationResult> done = new HashMap<>();
+        OutputFolder.Lock lock = OutputFolder.open(where, dir, settings.force(), settings.resume(),
+            () -> loadCheckpoint(job, settings, where, dir, checkpoint, identity, units, done));
+        try {
+            if (!settings.resume()) {
+                checkpoint.delete();
+            }
+            listener.started(done.size(), units.size(), settings.resume(), checkpoint.folder());
+            int[] saved = {done.size()};
+            List<CaseResult> results = Outputs.byCase(job, units, (c, u) -> {
+                SimulationResult r = done.get(u);
+                if (r == null) {
+                    r = simulate(job, c, u, settings.threads(), listener);
+                    checkpoint.save(identity, units.size(), settings.threads(), u, r);
+                    saved[0]++;
+                    listener.unitSaved(saved[0], units.size());
+                    TestHold.afterUnitSaved(saved[0] - done.size());
+                }
+                return r;
+            }, listener);
+            Finished finished = new Finished(results, Runner.analyse(job.experiment(), results, job.claims()), dir);
+            Outputs.write(dir, job, settings, finished, start, settings.threads());
+            checkpoint.delete();
+            return finished;
+        } finally {
+            lock.close();
+        }
+    }
+
+    /** Under the folder's lock: refuses a checkpoint without --resume or --force, and loads it with --resume. */
+    private static void loadCheckpoint(Job job, RunSettings settings, String where, Path dir, Checkpoint checkpoint,
+        RunIdentity identity, List<WorkPlan.Unit> units, Map<WorkPlan.Unit, SimulationResult> done) {
         if (checkpoint.size() > 0 && !settings.resume() && !settings.force()) {
             throw new IllegalArgumentException(where + ": " + dir + " holds an interrupted run (" + checkpoint.size()
                 + " finished units in " + Checkpoint.FOLDER + "); use --resume to continue it or --force to start over");
@@ -50,27 +81,6 @@ public final class LocalRun {
                 throw new IllegalArgumentException(job.file() + ": --resume: " + ex.getMessage(), ex);
             }
         }
-        OutputFolder.prepare(dir, settings.force());
-        if (!settings.resume()) {
-            checkpoint.delete();
-        }
-        listener.started(done.size(), units.size(), settings.resume(), checkpoint.folder());
-        int[] saved = {done.size()};
-        List<CaseResult> results = Outputs.byCase(job, units, (c, u) -> {
-            SimulationResult r = done.get(u);
-            if (r == null) {
-                r = simulate(job, c, u, settings.threads(), listener);
-                checkpoint.save(identity, units.size(), settings.threads(), u, r);
-                saved[0]++;
-                listener.unitSaved(saved[0], units.size());
-                TestHold.afterUnitSaved(saved[0] - done.size());
-            }
-            return r;
-        }, listener);
-        Finished finished = new Finished(results, Runner.analyse(job.experiment(), results, job.claims()), dir);
-        Outputs.write(dir, job, settings, finished, start, settings.threads());
-        checkpoint.delete();
-        return finished;
     }
 
     /**

@@ -41,12 +41,16 @@ public final class Merge {
         List<WorkPlan.Unit> units = job.units();
         Map<WorkPlan.Unit, SimulationResult> tallies = shards.tallies(units);
         Path target = settings.out() != null ? settings.out() : dir;
-        OutputFolder.check(settings.out() != null ? "--out" : "merge", target, settings.force(), false);
-        OutputFolder.prepare(target, settings.force());
-        List<CaseResult> results = Outputs.byCase(job, units, (c, u) -> tallies.get(u), RunListener.SILENT);
-        Finished finished = new Finished(results, Runner.analyse(job.experiment(), results, job.claims()), target);
-        Outputs.write(target, job, settings, finished, start, shards.threads());
-        return finished;
+        OutputFolder.Lock lock = OutputFolder.open(settings.out() != null ? "--out" : "merge", target,
+            settings.force(), false, null);
+        try {
+            List<CaseResult> results = Outputs.byCase(job, units, (c, u) -> tallies.get(u), RunListener.SILENT);
+            Finished finished = new Finished(results, Runner.analyse(job.experiment(), results, job.claims()), target);
+            Outputs.write(target, job, settings, finished, start, shards.threads());
+            return finished;
+        } finally {
+            lock.close();
+        }
     }
 
     private static void checkExperiment(Job job, RunIdentity ran) {

@@ -6,8 +6,13 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
 import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
+import java.util.HexFormat;
 import java.util.List;
 import reprise.output.AtomicFiles;
 import reprise.sim.SimulationResult;
@@ -28,8 +33,12 @@ import reprise.sim.TallyFile;
  * {@code to} (game indexes, {@code to} exclusive) and {@code tally} (the simulator's exact tally object,
  * {@link TallyFile}).
  *
- * <p>Room to grow: a checksum of the file's body would be one more top-level field, checked in
- * {@link #read}; a unit cut by game-index ranges finer than today's is already described by its
+ * <p>Last comes {@code sha256}: the SHA-256 (lower-case hex) of the object without that field, written
+ * compactly in field order ({@link #checksum}). {@link #read} checks every field's type first (so a field
+ * of the wrong kind is named as such) and then the checksum, and refuses a file whose content was changed
+ * after it was written, even when its counts still add up, naming the file.
+ *
+ * <p>Room to grow: a unit cut by game-index ranges finer than today's is already described by its
  * {@code from} and {@code to}, which is what readers compare.
  */
 public final class UnitFile {
@@ -37,6 +46,7 @@ public final class UnitFile {
     /** The format identifier. */
     public static final String FORMAT = "reprise-units-1";
     private static final ObjectMapper MAPPER = new ObjectMapper();
+    private static final String CHECKSUM = "sha256";
     private static final List<String> REQUIRED = List.of("experiment_file", "experiment_sha256", "seed",
         "tool_version", "shard", "shards", "units_total", "units");
 
@@ -135,7 +145,25 @@ public final class UnitFile {
             n.put("to", u.to());
             n.set("tally", TallyFile.toJson(u.tally()));
         }
+        o.put(CHECKSUM, checksum(o));
         AtomicFiles.writeText(target, w -> w.write(MAPPER.writeValueAsString(o)));
+    }
+
+    /**
+     * The checksum of a unit file's object: SHA-256 (lower-case hex) of its compact JSON text, fields in
+     * their order, without a {@code sha256} field.
+     *
+     * @param o the object (not changed)
+     * @return 64 hex digits
+     */
+    public static String checksum(JsonNode o) {
+        ObjectNode body = (ObjectNode) o.deepCopy();
+        body.remove(CHECKSUM);
+        try {
+            return sha256(MAPPER.writeValueAsString(body).getBytes(StandardCharsets.UTF_8));
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException("a JSON tree could not be written", e);
+        }
     }
 
     private static void putNullable(ObjectNode o, String field, String value) {
@@ -156,6 +184,9 @@ public final class UnitFile {
      */
     public static Content read(Path file, String kind) {
         JsonNode o;
+        if (Files.exists(file) && !Files.isRegularFile(file)) {
+            throw new IllegalArgumentException(file + ": is not a regular file, not a " + kind);
+        }
         try {
             o = MAPPER.readTree(file.toFile());
         } catch (JsonProcessingException ex) {
@@ -173,28 +204,75 @@ public final class UnitFile {
                 throw new IllegalArgumentException(file + ": " + kind + " without " + f);
             }
         }
+        Content content;
         try {
-            return new Content(header(o), units(o));
+            content = new Content(header(o), units(o));
         } catch (IllegalArgumentException ex) {
             throw new IllegalArgumentException(file + ": " + ex.getMessage(), ex);
         }
+        JsonNode sum = o.get(CHECKSUM);
+        if (sum == null || !sum.isTextual()) {
+            throw new IllegalArgumentException(file + ": " + kind + " without its " + CHECKSUM + " checksum (written by "
+                + "an older version, or edited)");
+        }
+        if (!sum.asText().equals(checksum(o))) {
+            throw new IllegalArgumentException(file + ": " + kind + " fails its " + CHECKSUM + " checksum: its content "
+                + "was changed after it was written");
+        }
+        return content;
     }
 
     private static Header header(JsonNode o) {
-        RunIdentity id = new RunIdentity(Path.of(o.get("experiment_file").asText()), o.get("experiment_sha256").asText(),
-            o.hasNonNull("claims_file") ? Path.of(o.get("claims_file").asText()) : null,
-            o.hasNonNull("claims_sha256") ? o.get("claims_sha256").asText() : null, o.get("seed").asLong(),
-            o.get("tool_version").asText());
-        return new Header(id, new Part(o.get("shard").asInt(), o.get("shards").asInt()), o.get("units_total").asInt(),
-            o.path("threads").asInt(1), o.path("seconds").asDouble(Double.NaN));
+        RunIdentity id = new RunIdentity(Path.of(text(o, "experiment_file")), text(o, "experiment_sha256"),
+            o.hasNonNull("claims_file") ? Path.of(text(o, "claims_file")) : null,
+            o.hasNonNull("claims_sha256") ? text(o, "claims_sha256") : null, whole(o, "seed", Long.MIN_VALUE, Long.MAX_VALUE),
+            text(o, "tool_version"));
+        int threads = o.hasNonNull("threads") ? (int) whole(o, "threads", 1, Integer.MAX_VALUE) : 1;
+        JsonNode seconds = o.get("seconds");
+        return new Header(id, new Part((int) whole(o, "shard", 1, Integer.MAX_VALUE), (int) whole(o, "shards", 1, Integer.MAX_VALUE)),
+            (int) whole(o, "units_total", 1, Integer.MAX_VALUE), threads, seconds != null && seconds.isNumber() ? seconds.asDouble()
+            : Double.NaN);
     }
 
     private static List<UnitTally> units(JsonNode o) {
+        if (!o.get("units").isArray()) {
+            throw new IllegalArgumentException("field units must be a list of units: " + o.get("units"));
+        }
         List<UnitTally> units = new ArrayList<>();
         for (JsonNode n : o.get("units")) {
-            units.add(new UnitTally(n.path("case_index").asInt(-1), n.path("chunk").asInt(-1), n.path("from").asLong(-1),
-                n.path("to").asLong(-1), TallyFile.fromJson(n.get("tally"))));
+            if (!n.isObject()) {
+                throw new IllegalArgumentException("field units holds a non-object: " + n);
+            }
+            units.add(new UnitTally((int) whole(n, "case_index", 0, Integer.MAX_VALUE), (int) whole(n, "chunk", 0,
+                Integer.MAX_VALUE), whole(n, "from", 0, Long.MAX_VALUE), whole(n, "to", 0, Long.MAX_VALUE), TallyFile.fromJson(n.get("tally"))));
         }
         return units;
+    }
+
+    /** A text field, or a one-line reason naming it. */
+    private static String text(JsonNode o, String field) {
+        JsonNode n = o.get(field);
+        if (n == null || !n.isTextual()) {
+            throw new IllegalArgumentException("field " + field + " must be text: " + n);
+        }
+        return n.asText();
+    }
+
+    /** A whole-number field in [min, max], or a one-line reason naming it. */
+    private static long whole(JsonNode o, String field, long min, long max) {
+        JsonNode n = o.get(field);
+        if (n == null || !n.isIntegralNumber() || !n.canConvertToLong() || n.asLong() < min || n.asLong() > max) {
+            throw new IllegalArgumentException("field " + field + " must be a whole number" + (min == Long.MIN_VALUE ? ""
+                : " from " + min + " to " + max) + ": " + n);
+        }
+        return n.asLong();
+    }
+
+    private static String sha256(byte[] bytes) {
+        try {
+            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is missing from this Java runtime", e);
+        }
     }
 }

@@ -126,7 +126,7 @@ public final class TallyFile {
             throw new IllegalArgumentException("tally: replicate ranges cover " + covered + " games, the tallies "
                 + a.games);
         }
-        return new SimulationResult(o.path("configuration").asText(), o.path("seed").asLong(),
+        return new SimulationResult(o.path("configuration").asText(), field(o, "seed"),
             o.path("fast_path").asBoolean(), doubles(o, "payoff_x"), doubles(o, "payoff_y"), ranges, a);
     }
 
@@ -148,8 +148,8 @@ public final class TallyFile {
 
     private static long field(JsonNode o, String name) {
         JsonNode n = o.get(name);
-        if (n == null || !n.canConvertToLong()) {
-            throw new IllegalArgumentException("tally: " + name + " is missing or not a whole number");
+        if (n == null || !n.isIntegralNumber() || !n.canConvertToLong()) {
+            throw new IllegalArgumentException("tally: " + name + " is missing or not a whole number: " + n);
         }
         return n.asLong();
     }
@@ -162,7 +162,7 @@ public final class TallyFile {
         }
         long[] v = new long[n.size()];
         for (int i = 0; i < v.length; i++) {
-            if (!n.get(i).canConvertToLong()) {
+            if (!n.get(i).isIntegralNumber() || !n.get(i).canConvertToLong()) {
                 throw new IllegalArgumentException("tally: " + name + "[" + i + "] is not a whole number");
             }
             v[i] = n.get(i).asLong();

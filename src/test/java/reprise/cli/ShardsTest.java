@@ -29,6 +29,7 @@ import org.junit.jupiter.params.provider.ValueSource;
 import reprise.experiment.Experiment;
 import reprise.experiment.ExperimentFile;
 import reprise.run.Part;
+import reprise.run.UnitFile;
 import reprise.run.WorkPlan;
 
 /**
@@ -240,6 +241,7 @@ class ShardsTest {
             Path f = dir.resolve("shards").resolve(new Part(i, 3).fileName());
             ObjectNode o = (ObjectNode) Json.MAPPER.readTree(f.toFile());
             edit.accept(o);
+            o.put("sha256", UnitFile.checksum(o));
             Files.writeString(f, Json.MAPPER.writeValueAsString(o));
         } catch (IOException ex) {
             throw new java.io.UncheckedIOException(ex);
@@ -270,7 +272,8 @@ class ShardsTest {
                 Files.copy(d.resolve("shards/shard-1-of-3.json"), d.resolve("shards/shard-1-of-2.json"));
                 Path f = d.resolve("shards/shard-1-of-2.json");
                 ObjectNode o = (ObjectNode) Json.MAPPER.readTree(f.toFile());
-                Files.writeString(f, Json.MAPPER.writeValueAsString(o.put("shards", 2)));
+                o.put("shards", 2);
+                Files.writeString(f, Json.MAPPER.writeValueAsString(o.put("sha256", UnitFile.checksum(o))));
             }, "mixes runs cut into 2 and 3 shards (shard-1-of-2.json, shard-1-of-3.json)"),
             Arguments.of("unit moved", (Damage) d -> editShard(d, 1, o -> ((ObjectNode) o.get("units").get(0))
                 .put("chunk", 9)), "but this experiment's shard 1 has case"),
@@ -285,6 +288,18 @@ class ShardsTest {
                     s.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
                 }
             }, "does not exist: no shards to merge"),
+            Arguments.of("edited counts", (Damage) d -> {
+                Path f = d.resolve("shards/shard-2-of-3.json");
+                ObjectNode o = (ObjectNode) Json.MAPPER.readTree(f.toFile());
+                com.fasterxml.jackson.databind.node.ArrayNode states = (com.fasterxml.jackson.databind.node.ArrayNode)
+                    o.get("units").get(0).get("tally").get("states");
+                long first = states.get(0).asLong();
+                states.set(0, states.get(3).asLong());
+                states.set(3, first);
+                Files.writeString(f, Json.MAPPER.writeValueAsString(o));
+            }, "shard-2-of-3.json: shard file fails its sha256 checksum"),
+            Arguments.of("seed of the wrong kind", (Damage) d -> editShard(d, 2, o -> o.put("seed", "one")),
+                "shard-2-of-3.json: field seed must be a whole number: \"one\""),
             Arguments.of("unreadable shard", (Damage) d -> Files.writeString(d.resolve("shards/shard-2-of-3.json"), "{"),
                 "shard-2-of-3.json: cannot be read as a shard file"));
     }

@@ -65,6 +65,32 @@ class ExperimentFileTest {
         assertEquals(Map.of("chi", 3.0), cases.get(11).parameters());
     }
 
+    /**
+     * Pairs that use different subsets of the parameters: each pair varies over its own parameters only,
+     * first parameter outermost, and the count taken before expansion (which refuses huge grids) is the
+     * number of cases expanded. Expected ids written out by hand from the rule in README ("Experiment files").
+     */
+    @Test
+    void eachPairVariesOverItsOwnParametersAndTheCountMatches() throws IOException {
+        Experiment e = ExperimentFile.read(write("subsets.yaml", String.join("\n",
+            "experiment: subsets",
+            "pairs:",
+            "  - {name: one, x: 'reactive:{p},0.1', y: tft}",
+            "  - {name: both, x: 'reactive:{p},{q}', y: tft}",
+            "  - {name: other, x: 'reactive:0.9,{q}', y: tft}",
+            "grid:",
+            "  rounds: [20]",
+            "  parameters:",
+            "    p: [0.9, 0.8]",
+            "    q: [0.1, 0.2, 0.3]",
+            "")));
+        List<String> ids = e.cases().stream().map(Case::id).toList();
+        assertEquals(List.of("one/p=0.9", "one/p=0.8",
+            "both/p=0.9/q=0.1", "both/p=0.9/q=0.2", "both/p=0.9/q=0.3",
+            "both/p=0.8/q=0.1", "both/p=0.8/q=0.2", "both/p=0.8/q=0.3",
+            "other/q=0.1", "other/q=0.2", "other/q=0.3"), ids);
+    }
+
     static Stream<Path> bundledExperiments() throws IOException {
         try (Stream<Path> s = Files.list(Path.of("experiments"))) {
             return s.filter(p -> p.toString().endsWith(".yaml")).sorted().toList().stream();

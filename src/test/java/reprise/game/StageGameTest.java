@@ -70,4 +70,20 @@ class StageGameTest {
         assertTrue(e.getMessage().contains(fragment), e.getMessage());
         assertEquals(-1, e.getMessage().indexOf('\n'), "one line");
     }
+
+    /**
+     * The payoff range, 0 or magnitudes in [1e-100, 1e100], at its edges: the tool's own bound (see
+     * StageGame.MOST_PAYOFF_MAGNITUDE for why), no external source. Eight-number and preset games go
+     * through the same check.
+     */
+    @Test
+    void payoffsBeyondTheRangeOfTheirSquaresAreRefused() {
+        StageGame.symmetric(1e100, 0, -1e100, 1e-100);
+        StageGame.parse("donation:1e100,1e-100");
+        for (String text : new String[] {"1.0000001e100,0,2,1", "3,0,5,9e-101", "1,2,3,4,5,6,7,-2e100",
+            "donation:2e100,1"}) {
+            IllegalArgumentException ex = assertThrows(IllegalArgumentException.class, () -> StageGame.parse(text));
+            assertTrue(ex.getMessage().contains("must be 0 or of magnitude between 1e-100 and 1e100"), ex.getMessage());
+        }
+    }
 }

@@ -4,6 +4,9 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -85,5 +88,61 @@ class UnitFileTest {
         Checkpoint.of(tmp, new Part(1, 2)).save(RUN, 1, 1, u, r);
         ex = assertThrows(IllegalArgumentException.class, () -> whole.load(RUN, List.of(u)));
         assertTrue(ex.getMessage().contains("different run (shard 1 of 2, now 1 of 1)"), ex.getMessage());
+    }
+
+    /**
+     * A checkpoint unit edited so that its counts still add up (two state counts swapped: the sum and every
+     * count check still hold) once changed the resumed results; its checksum now refuses it, naming the
+     * file. A file without a checksum (an older writer) is refused too.
+     */
+    @Test
+    void anEditedUnitFailsItsChecksum() throws IOException {
+        Simulator sim = simulator();
+        WorkPlan.Unit u = new WorkPlan.Unit(0, 0, 0, 10, 200);
+        Checkpoint cp = Checkpoint.of(tmp);
+        cp.save(RUN, 1, 1, u, sim.simulateRange(0, 10, null));
+        Path f = cp.folder().resolve(u.fileName());
+        ObjectMapper mapper = new ObjectMapper();
+        ObjectNode o = (ObjectNode) mapper.readTree(f.toFile());
+        ArrayNode states = (ArrayNode) o.get("units").get(0).get("tally").get("states");
+        long first = states.get(0).asLong();
+        long second = states.get(1).asLong();
+        assertTrue(first != second, "the swap must change something: " + states);
+        states.set(0, second);
+        states.set(1, first);
+        Files.writeString(f, mapper.writeValueAsString(o));
+        IllegalArgumentException ex = assertThrows(IllegalArgumentException.class, () -> cp.load(RUN, List.of(u)));
+        assertEquals(f + ": checkpoint fails its sha256 checksum: its content was changed after it was written; "
+            + "delete it to simulate that unit again", ex.getMessage());
+
+        o.remove("sha256");
+        Files.writeString(f, mapper.writeValueAsString(o));
+        ex = assertThrows(IllegalArgumentException.class, () -> UnitFile.read(f, "shard file"));
+        assertEquals(f + ": shard file without its sha256 checksum (written by an older version, or edited)",
+            ex.getMessage());
+    }
+
+    /** A field of the wrong kind is named as such (a seed "one" was once read as seed 0). */
+    @Test
+    void aFieldOfTheWrongKindIsNamed() throws IOException {
+        Simulator sim = simulator();
+        WorkPlan.Unit u = new WorkPlan.Unit(0, 0, 0, 10, 200);
+        Path f = tmp.resolve(new Part(1, 1).fileName());
+        UnitFile.write(f, new UnitFile.Content(new UnitFile.Header(RUN, new Part(1, 1), 1, 1, 0.5),
+            List.of(UnitFile.UnitTally.of(u, sim.simulateRange(0, 10, null)))));
+        ObjectMapper mapper = new ObjectMapper();
+        ObjectNode o = (ObjectNode) mapper.readTree(f.toFile());
+        o.put("seed", "one");
+        o.put("sha256", UnitFile.checksum(o));
+        Files.writeString(f, mapper.writeValueAsString(o));
+        IllegalArgumentException ex = assertThrows(IllegalArgumentException.class, () -> UnitFile.read(f, "shard file"));
+        assertEquals(f + ": field seed must be a whole number: \"one\"", ex.getMessage());
+
+        o.put("seed", 42);
+        ((ObjectNode) o.get("units").get(0)).put("chunk", 0.5);
+        o.put("sha256", UnitFile.checksum(o));
+        Files.writeString(f, mapper.writeValueAsString(o));
+        ex = assertThrows(IllegalArgumentException.class, () -> UnitFile.read(f, "shard file"));
+        assertEquals(f + ": field chunk must be a whole number from 0 to 2147483647: 0.5", ex.getMessage());
     }
 }

@@ -218,24 +218,15 @@ final class FigureFiles {
     }
 
     /**
-     * Writes {@code bytes} to a temporary file beside {@code file} and moves it onto {@code file}.
+     * Writes {@code bytes} through {@link reprise.output.AtomicFiles}: a temporary file beside {@code file}
+     * (created with the process's default permissions, so the umask applies) moved onto {@code file}, so
+     * that a crash or a full disk never leaves a cut figure under its final name.
      *
      * @param file the final name
      * @param bytes the whole content
-     * @throws IOException if writing or moving fails; the temporary file is then removed
+     * @throws java.io.UncheckedIOException if writing or moving fails; the temporary file is then removed
      */
-    static void writeAtomically(Path file, byte[] bytes) throws IOException {
-        Path dir = file.toAbsolutePath().getParent();
-        Path temp = Files.createTempFile(dir, "." + file.getFileName() + ".", ".part");
-        try {
-            Files.write(temp, bytes);
-            try {
-                Files.move(temp, file, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
-            } catch (AtomicMoveNotSupportedException e) {
-                Files.move(temp, file, StandardCopyOption.REPLACE_EXISTING);
-            }
-        } finally {
-            Files.deleteIfExists(temp);
-        }
+    static void writeAtomically(Path file, byte[] bytes) {
+        reprise.output.AtomicFiles.write(file, temporary -> Files.write(temporary, bytes));
     }
 }
