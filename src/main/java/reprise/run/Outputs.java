@@ -94,6 +94,10 @@ final class Outputs {
         for (Plotter.Drawn d : drawn) {
             d.result().files().forEach(f -> outputs.add(dir.toAbsolutePath().relativize(f.toAbsolutePath()).toString()));
         }
+        Path manifest = dir.resolve("figures").resolve(reprise.output.figures.FigureManifest.FILE_NAME);
+        if (java.nio.file.Files.isRegularFile(manifest)) {
+            outputs.add(dir.toAbsolutePath().relativize(manifest.toAbsolutePath()).toString());
+        }
         Provenance.write(dir.resolve("run.json"), new Provenance.Run(version, settings.commandLine(), job.file(),
             e.sha256(), e.claims(), e.claims() == null ? null : RunIdentity.sha256(e.claims()), e.seed(),
             Simulator.GENERATOR, "case i: SplitMix64(seed + (i+1) * 0x9E3779B97F4A7C15); game g of a case: the "
