@@ -24,9 +24,10 @@ import reprise.game.Population;
  * games is a convolution, done by the discrete Fourier transform of length L_F, a power of two above the
  * range of D_int (so the cyclic convolution does not wrap). Since only E[g(D)] is needed, Parseval's
  * identity sum_d p(d) g(d) = (1 / L_F) sum_w phat(w) conj(ghat(w)) is used directly, with phat a product of
- * powers of the single-game transforms computed in polar form (|z|^k e^{i k arg z}, exact for integer k);
- * no inverse transform is needed and each i costs one pass over L_F / 2 + 1 frequencies (the spectra are
- * Hermitian). Continuation games are truncated after T rounds with (number of games) delta^T &le;
+ * powers of the single-game transforms computed in polar form (|z|^k e^{i k arg z}, exact for integer k;
+ * with every co-player the phase is carried from i to i + 1 by one rotation, whose rounding grows by a few
+ * units of 2^-53 per step); no inverse transform is needed and each i costs one pass over L_F / 2 + 1
+ * frequencies (the spectra are Hermitian). Continuation games are truncated after T rounds with (number of games) delta^T &le;
  * {@link #TRUNCATION}, a bound on the total-variation error of D's law and hence on the absolute error of
  * each update probability. Rounding in the transforms adds an error of order eps sqrt(L_F) log2(L_F)
  * (reported as an estimate, not a bound). Payoffs that are not on a small lattice are rounded to one
@@ -242,21 +243,32 @@ final class RealisedRates {
             }
             double[] ls = ps[0];
             double[] ts = ps[1];
+            // The phase k1 t1 + k2 t2 + ts moves by t1 - t2 from i to i + 1: kept as a unit complex number and
+            // rotated, so each i costs one exp per frequency and no sin or cos.
+            double[] pc = new double[h];
+            double[] pss = new double[h];
+            double[] rc = new double[h];
+            double[] rs = new double[h];
+            for (int w = 0; w < h; w++) {
+                double ang = (n - 2) * t2[w] + ts[w];
+                pc[w] = Math.cos(ang);
+                pss[w] = Math.sin(ang);
+                rc[w] = Math.cos(t1[w] - t2[w]);
+                rs[w] = Math.sin(t1[w] - t2[w]);
+            }
             for (int i = 1; i < n; i++) {
                 double k1 = i - 1;
                 double k2 = n - i - 1;
                 double f = 0;
                 double r = 0;
                 for (int w = 0; w < h; w++) {
+                    double c = pc[w];
+                    double sn = pss[w];
+                    pc[w] = c * rc[w] - sn * rs[w];
+                    pss[w] = c * rs[w] + sn * rc[w];
                     double mag = Math.exp(k1 * l1[w] + k2 * l2[w] + ls[w]) * weight[w];
-                    if (mag == 0) {
-                        continue;
-                    }
-                    double ang = k1 * t1[w] + k2 * t2[w] + ts[w];
-                    double c = Math.cos(ang);
-                    double s = Math.sin(ang);
-                    f += mag * (c * gpr[w] + s * gpi[w]);
-                    r += mag * (c * gmr[w] + s * gmi[w]);
+                    f += mag * (c * gpr[w] + sn * gpi[w]);
+                    r += mag * (c * gmr[w] + sn * gmi[w]);
                 }
                 forward[i] = clip(f);
                 backward[i] = clip(r);

@@ -50,10 +50,6 @@ final class PopulationWorker {
         final long[] ly = t.limitY();
         long s0 = rng.state0;
         long s1 = rng.state1;
-        long c0 = 0;
-        long c1 = 0;
-        long c2 = 0;
-        long c3 = 0;
         long r = Long.rotateLeft(s0 + s1, 17) + s0;
         s1 ^= s0;
         s0 = Long.rotateLeft(s0, 49) ^ s1 ^ (s1 << 21);
@@ -65,22 +61,25 @@ final class PopulationWorker {
         tally[2] = 0;
         tally[3] = 0;
         tally[s]++;
-        for (long k = 1; k < length; k++) {
-            r = Long.rotateLeft(s0 + s1, 17) + s0;
-            s1 ^= s0;
-            s0 = Long.rotateLeft(s0, 49) ^ s1 ^ (s1 << 21);
-            s1 = Long.rotateLeft(s1, 28);
-            s = (int) (((lx[s] - (r >>> 32)) >>> 63) << 1) | (int) ((ly[s] - (r & 0xFFFFFFFFL)) >>> 63);
-            // Branch-free tally of the four states.
-            c0 += (s == 0) ? 1 : 0;
-            c1 += (s == 1) ? 1 : 0;
-            c2 += (s == 2) ? 1 : 0;
-            c3 += (s == 3) ? 1 : 0;
+        long left = length - 1;
+        while (left > 0) {
+            // Four 16-bit counters in one word, one per state, emptied every 65,535 rounds.
+            int block = (int) Math.min(left, 0xFFFF);
+            long packed = 0;
+            for (int k = 0; k < block; k++) {
+                r = Long.rotateLeft(s0 + s1, 17) + s0;
+                s1 ^= s0;
+                s0 = Long.rotateLeft(s0, 49) ^ s1 ^ (s1 << 21);
+                s1 = Long.rotateLeft(s1, 28);
+                s = (int) (((lx[s] - (r >>> 32)) >>> 63) << 1) | (int) ((ly[s] - (r & 0xFFFFFFFFL)) >>> 63);
+                packed += 1L << (s << 4);
+            }
+            tally[0] += packed & 0xFFFF;
+            tally[1] += (packed >>> 16) & 0xFFFF;
+            tally[2] += (packed >>> 32) & 0xFFFF;
+            tally[3] += packed >>> 48;
+            left -= block;
         }
-        tally[0] += c0;
-        tally[1] += c1;
-        tally[2] += c2;
-        tally[3] += c3;
         rng.state0 = s0;
         rng.state1 = s1;
     }
