@@ -7,6 +7,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicLong;
 import reprise.game.Horizon;
 import reprise.game.MemoryStrategy;
 import reprise.game.Noise;
@@ -185,15 +186,24 @@ public final class PopulationSimulator {
         long count = to - from;
         int parts = (int) Math.min(threads, Math.max(1, count));
         if (parts == 1) {
-            return range(mutant, resident, from, to);
+            return range(new PopulationWorker(this), mutant, resident, from, to);
         }
+        // Invasions differ widely in length, so workers take small chunks of indexes as they go; the exact
+        // integer tallies add to the same result in any order.
+        long chunk = Math.max(1, count / (16L * parts));
+        AtomicLong cursor = new AtomicLong(from);
         ExecutorService pool = Executors.newFixedThreadPool(parts);
         try {
             List<Future<InvasionTally>> futures = new ArrayList<>();
             for (int p = 0; p < parts; p++) {
-                long a = from + count * p / parts;
-                long b = from + count * (p + 1) / parts;
-                futures.add(pool.submit(() -> range(mutant, resident, a, b)));
+                futures.add(pool.submit(() -> {
+                    PopulationWorker w = new PopulationWorker(this);
+                    InvasionTally sum = InvasionTally.EMPTY;
+                    for (long a = cursor.getAndAdd(chunk); a < to; a = cursor.getAndAdd(chunk)) {
+                        sum = sum.plus(range(w, mutant, resident, a, Math.min(to, a + chunk)));
+                    }
+                    return sum;
+                }));
             }
             InvasionTally total = InvasionTally.EMPTY;
             for (Future<InvasionTally> f : futures) {
@@ -213,8 +223,7 @@ public final class PopulationSimulator {
         }
     }
 
-    private InvasionTally range(int mutant, int resident, long from, long to) {
-        PopulationWorker w = new PopulationWorker(this);
+    private InvasionTally range(PopulationWorker w, int mutant, int resident, long from, long to) {
         int n = population.size();
         long fixations = 0;
         long timeSum = 0;
