@@ -26,7 +26,23 @@ final class Fourier {
         return Math.max(l, 2);
     }
 
+    /** Twiddle factors cos and -sin of 2 pi j / L, j &lt; L / 2, for {@link #forward(double[], double[], double[][])}. */
+    static double[][] twiddles(int n) {
+        double[] cos = new double[n / 2];
+        double[] sin = new double[n / 2];
+        for (int j = 0; j < n / 2; j++) {
+            double a = 2 * Math.PI * j / n;
+            cos[j] = Math.cos(a);
+            sin[j] = -Math.sin(a);
+        }
+        return new double[][] {cos, sin};
+    }
+
     static void forward(double[] re, double[] im) {
+        forward(re, im, twiddles(re.length));
+    }
+
+    static void forward(double[] re, double[] im, double[][] twiddles) {
         int n = re.length;
         for (int i = 1, j = 0; i < n; i++) {
             int bit = n >> 1;
@@ -43,13 +59,8 @@ final class Fourier {
                 im[j] = t;
             }
         }
-        double[] cos = new double[n / 2];
-        double[] sin = new double[n / 2];
-        for (int j = 0; j < n / 2; j++) {
-            double a = 2 * Math.PI * j / n;
-            cos[j] = Math.cos(a);
-            sin[j] = -Math.sin(a);
-        }
+        double[] cos = twiddles[0];
+        double[] sin = twiddles[1];
         for (int len = 2; len <= n; len <<= 1) {
             int half = len >> 1;
             int stride = n / len;
@@ -68,5 +79,31 @@ final class Fourier {
                 }
             }
         }
+    }
+
+    /**
+     * The transforms of two real sequences by one complex transform: with z = x + i y,
+     * X(w) = (Z(w) + conj Z(L - w)) / 2 and Y(w) = (Z(w) - conj Z(L - w)) / (2i), for w = 0..L/2.
+     *
+     * @return {Xre, Xim, Yre, Yim}, each of length L / 2 + 1
+     */
+    static double[][] forwardPair(double[] x, double[] y, double[][] twiddles) {
+        int n = x.length;
+        double[] re = x.clone();
+        double[] im = y.clone();
+        forward(re, im, twiddles);
+        int h = n / 2 + 1;
+        double[] xr = new double[h];
+        double[] xi = new double[h];
+        double[] yr = new double[h];
+        double[] yi = new double[h];
+        for (int w = 0; w < h; w++) {
+            int m = (n - w) & (n - 1);
+            xr[w] = 0.5 * (re[w] + re[m]);
+            xi[w] = 0.5 * (im[w] - im[m]);
+            yr[w] = 0.5 * (im[w] + im[m]);
+            yi[w] = -0.5 * (re[w] - re[m]);
+        }
+        return new double[][] {xr, xi, yr, yi};
     }
 }

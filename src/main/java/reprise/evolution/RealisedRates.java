@@ -162,24 +162,34 @@ final class RealisedRates {
         return new Rates(population, forward, backward, error, method(horizon, false));
     }
 
-    /** The transform of a law placed cyclically on length l, in polar form over frequencies 0..l/2. */
-    private static double[][] polar(GameLaw law, int l) {
+    /** A law placed cyclically on length l. */
+    private static double[] placed(GameLaw law, int l) {
         double[] re = new double[l];
-        double[] im = new double[l];
+        if (law == null) {
+            return re;
+        }
         double[] p = law.probability();
         for (int j = 0; j < p.length; j++) {
             re[Math.floorMod(law.lowest() + j, l)] += p[j];
         }
-        Fourier.forward(re, im);
+        return re;
+    }
+
+    /** The transforms of two laws in polar form over frequencies 0..l/2: {log|X|, arg X, log|Y|, arg Y}. */
+    private static double[][] polarPair(GameLaw x, GameLaw y, int l, double[][] twiddles) {
+        double[][] t = Fourier.forwardPair(placed(x, l), placed(y, l), twiddles);
         int h = l / 2 + 1;
-        double[] abs = new double[h];
-        double[] arg = new double[h];
-        for (int w = 0; w < h; w++) {
-            double r = Math.hypot(re[w], im[w]);
-            abs[w] = r > 0 ? Math.log(r) : FLOOR;
-            arg[w] = Math.atan2(im[w], re[w]);
+        double[][] out = new double[4][h];
+        for (int k = 0; k < 2; k++) {
+            double[] re = t[2 * k];
+            double[] im = t[2 * k + 1];
+            for (int w = 0; w < h; w++) {
+                double r2 = re[w] * re[w] + im[w] * im[w];
+                out[2 * k][w] = r2 > 0 ? 0.5 * Math.log(r2) : FLOOR;
+                out[2 * k + 1][w] = Math.atan2(im[w], re[w]);
+            }
         }
-        return new double[][] {abs, arg};
+        return out;
     }
 
     private static Rates pairwise(PayoffBasis.Realised basis, Population population, int a, int b) {
@@ -208,21 +218,31 @@ final class RealisedRates {
         int l = Fourier.lengthFor(maxD - minD + 1);
         double scale = population.selection() * lattice.unit() / (g * horizon.expectedLength());
         double[] gpr = new double[l];
-        double[] gpi = new double[l];
         double[] gmr = new double[l];
-        double[] gmi = new double[l];
+        double[] gpi;
+        double[] gmi;
         for (long d = minD; d <= maxD; d++) {
             int k = (int) Math.floorMod(d, (long) l);
             gpr[k] = Rates.logistic(scale * d);
             gmr[k] = Rates.logistic(-scale * d);
         }
-        Fourier.forward(gpr, gpi);
-        Fourier.forward(gmr, gmi);
-        double[][] paa = polar(aa, l);
-        double[][] pab = polar(ab, l);
-        double[][] pba = polar(ba, l);
-        double[][] pbb = polar(bb, l);
-        double[][] ps = shared == null ? null : polar(shared, l);
+        double[][] twiddles = Fourier.twiddles(l);
+        double[][] gt = Fourier.forwardPair(gpr, gmr, twiddles);
+        gpr = gt[0];
+        gpi = gt[1];
+        gmr = gt[2];
+        gmi = gt[3];
+        double[][] first = polarPair(aa, ab, l, twiddles);
+        double[][] second = polarPair(ba, bb, l, twiddles);
+        double[][] paa = {first[0], first[1]};
+        double[][] pab = {first[2], first[3]};
+        double[][] pba = {second[0], second[1]};
+        double[][] pbb = {second[2], second[3]};
+        double[][] ps = null;
+        if (shared != null) {
+            double[][] third = polarPair(shared, null, l, twiddles);
+            ps = new double[][] {third[0], third[1]};
+        }
         int h = l / 2 + 1;
         double[] weight = new double[h];
         for (int w = 0; w < h; w++) {
@@ -245,30 +265,58 @@ final class RealisedRates {
             double[] ts = ps[1];
             // The phase k1 t1 + k2 t2 + ts moves by t1 - t2 from i to i + 1: kept as a unit complex number and
             // rotated, so each i costs one exp per frequency and no sin or cos.
-            double[] pc = new double[h];
-            double[] pss = new double[h];
-            double[] rc = new double[h];
-            double[] rs = new double[h];
+            // Frequencies whose exponent k1 l1 + k2 l2 + ls stays below -750 for every i (it is linear in i, so
+            // the ends decide) contribute exactly 0 (exp underflows) and are left out.
+            int[] active = new int[h];
+            int count = 0;
             for (int w = 0; w < h; w++) {
+                double end0 = (n - 2) * l2[w] + ls[w];
+                double end1 = (n - 2) * l1[w] + ls[w];
+                if (Math.max(end0, end1) >= -750) {
+                    active[count++] = w;
+                }
+            }
+            double[] pc = new double[count];
+            double[] pss = new double[count];
+            double[] rc = new double[count];
+            double[] rs = new double[count];
+            double[] al1 = new double[count];
+            double[] al2 = new double[count];
+            double[] als = new double[count];
+            double[] aw = new double[count];
+            double[] apr = new double[count];
+            double[] api = new double[count];
+            double[] amr = new double[count];
+            double[] ami = new double[count];
+            for (int j = 0; j < count; j++) {
+                int w = active[j];
                 double ang = (n - 2) * t2[w] + ts[w];
-                pc[w] = Math.cos(ang);
-                pss[w] = Math.sin(ang);
-                rc[w] = Math.cos(t1[w] - t2[w]);
-                rs[w] = Math.sin(t1[w] - t2[w]);
+                pc[j] = Math.cos(ang);
+                pss[j] = Math.sin(ang);
+                rc[j] = Math.cos(t1[w] - t2[w]);
+                rs[j] = Math.sin(t1[w] - t2[w]);
+                al1[j] = l1[w];
+                al2[j] = l2[w];
+                als[j] = ls[w];
+                aw[j] = weight[w];
+                apr[j] = gpr[w];
+                api[j] = gpi[w];
+                amr[j] = gmr[w];
+                ami[j] = gmi[w];
             }
             for (int i = 1; i < n; i++) {
                 double k1 = i - 1;
                 double k2 = n - i - 1;
                 double f = 0;
                 double r = 0;
-                for (int w = 0; w < h; w++) {
-                    double c = pc[w];
-                    double sn = pss[w];
-                    pc[w] = c * rc[w] - sn * rs[w];
-                    pss[w] = c * rs[w] + sn * rc[w];
-                    double mag = Math.exp(k1 * l1[w] + k2 * l2[w] + ls[w]) * weight[w];
-                    f += mag * (c * gpr[w] + sn * gpi[w]);
-                    r += mag * (c * gmr[w] + sn * gmi[w]);
+                for (int j = 0; j < count; j++) {
+                    double c = pc[j];
+                    double sn = pss[j];
+                    pc[j] = c * rc[j] - sn * rs[j];
+                    pss[j] = c * rs[j] + sn * rc[j];
+                    double mag = Math.exp(k1 * al1[j] + k2 * al2[j] + als[j]) * aw[j];
+                    f += mag * (c * apr[j] + sn * api[j]);
+                    r += mag * (c * amr[j] + sn * ami[j]);
                 }
                 forward[i] = clip(f);
                 backward[i] = clip(r);
