@@ -70,6 +70,7 @@ public sealed interface PayoffBasis permits PayoffBasis.Matrix, PayoffBasis.Real
             return payoffs[x][y];
         }
 
+        /** @return the matrix (a copy) */
         @Override
         public double[][] payoffs() {
             double[][] c = new double[payoffs.length][];
