@@ -215,4 +215,40 @@ class LatticeLawTest {
             assertEquals(f, rates.forward()[i], 1e-12 * f, "i = " + i);
         }
     }
+
+    /**
+     * Payoffs off any small lattice (irrational entries) are rounded to a grid and labelled ROUNDED; the
+     * update probabilities must lie within the stated bound beta unit / 4 (plus rounding) of the exact
+     * expectation, here by enumeration with the real payoffs (N = 3, 3-round games).
+     */
+    @org.junit.jupiter.api.Test
+    void offLatticePayoffsAreRoundedWithinTheStatedBound() {
+        StageGame g = StageGame.symmetric(Math.sqrt(8), -Math.PI / 10, Math.E + 2, Math.sqrt(2) / 3);
+        MemoryStrategy a = MemoryStrategy.memoryOne("m1", new double[] {0.9, 0.3, 0.6, 0.2}, 0.7);
+        MemoryStrategy b = MemoryStrategy.memoryOne("wsls", new double[] {1, 0, 0, 1}, 1);
+        Noise noise = Noise.symmetric(0.05, 0.05);
+        int n = 3;
+        int size = 3;
+        double beta = 3;
+        PayoffBasis.Realised basis = new PayoffBasis.Realised(g, List.of(a, b), noise, Horizon.rounds(n));
+        Rates rates = RealisedRates.of(basis, Population.pairwise(size, beta), 0, 1);
+        org.junit.jupiter.api.Assertions.assertEquals(Fixation.Method.ROUNDED, rates.method());
+        Lattice lattice = Lattice.of(g.payoffX());
+        org.junit.jupiter.api.Assertions.assertTrue(lattice.rounded());
+        Map<Double, Double> shared = new HashMap<>();
+        enumerate(g, a, b, 0.05, 0.05, n).forEach((k, p) -> shared.merge(k.get(0) - k.get(1), p, Double::sum));
+        for (int i = 1; i < size; i++) {
+            Map<Double, Double> d = shared;
+            d = convolve(d, power(own(g, a, a, noise, n, false), i - 1));
+            d = convolve(d, power(own(g, a, b, noise, n, false), size - i - 1));
+            d = convolve(d, power(own(g, b, a, noise, n, true), i - 1));
+            d = convolve(d, power(own(g, b, b, noise, n, true), size - i - 1));
+            double f = 0;
+            for (Map.Entry<Double, Double> en : d.entrySet()) {
+                f += en.getValue() * Rates.logistic(beta * en.getKey() / ((size - 1.0) * n));
+            }
+            org.junit.jupiter.api.Assertions.assertEquals(f, rates.forward()[i], rates.absoluteError(), "i = " + i);
+        }
+        org.junit.jupiter.api.Assertions.assertTrue(rates.absoluteError() < beta * lattice.unit() / 4 + 1e-9);
+    }
 }
