@@ -24,6 +24,7 @@ import reprise.output.AtomicFiles;
 import reprise.output.Plotter;
 import reprise.sim.SimulationSpec;
 import reprise.stats.Calibration;
+import reprise.stats.Interval;
 
 /**
  * {@code calibrate}: repeats a simulation with independent seeds and reports, per test, how often it
@@ -261,12 +262,30 @@ final class CalibrateCommand implements Callable<Integer> {
             n.set("rejection_rate_interval", ci);
             Json.put(n, "binomial_p", c.binomialPValue());
             Json.put(n, "uniformity_p", c.uniformityPValue());
+            ArrayNode tailNodes = n.putArray("tails");
+            Calibration.TailSummary tails = t.tails();
+            for (int j = 0; j < tails.levels().length; j++) {
+                ObjectNode tn = Json.object();
+                Json.put(tn, "level", tails.levels()[j]);
+                tn.put("rejections", tails.rejections()[j]);
+                Json.put(tn, "rate", tails.rates()[j].estimate());
+                Json.put(tn, "lower", tails.rates()[j].lower());
+                Json.put(tn, "upper", tails.rates()[j].upper());
+                Json.put(tn, "excess_p", tails.excessPValues()[j]);
+                tailNodes.add(tn);
+            }
+            n.put("lower_tail_departs", tails.lowerTailDeparts());
             n.put("note", t.note());
             n.set("p_values", Json.array(t.pValues()));
             tests.add(n);
         }
         o.set("warnings", Json.strings(r.warnings().toArray(String[]::new)));
         return o;
+    }
+
+    private static String tailCell(Calibration.TailSummary tails, int j) {
+        Interval rate = tails.rates()[j];
+        return String.format(Locale.ROOT, "%.4f [%.4f, %.4f]", rate.estimate(), rate.lower(), rate.upper());
     }
 
     private static ObjectNode noiseNode(Noise n) {
@@ -296,13 +315,15 @@ final class CalibrateCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "%d repetitions of %d games (burn-in %d), seed %d, alpha %s%n", r.repetitions(),
             s.replicates(), s.burnIn(), s.seed(), SolveCommand.fmt(r.alpha()));
         out.println();
-        out.printf(Locale.ROOT, "%-50s %-12s %-7s %-17s %s%n", "test", "rejections", "rate", "95% interval",
-            "uniformity p");
+        out.printf(Locale.ROOT, "%-50s %-12s %-7s %-17s %-12s %-26s %-26s %s%n", "test", "rejections", "rate",
+            "95% interval", "uniformity p", "p < 0.01: rate [95%]", "p < 0.001: rate [95%]", "lower tail");
         for (CalibrationStudy.TestCalibration t : r.tests()) {
             Calibration.Summary c = t.summary();
-            out.printf(Locale.ROOT, "%-50s %-12s %-7.3f [%.3f, %.3f]    %.3g%n", t.name(),
+            Calibration.TailSummary tails = t.tails();
+            out.printf(Locale.ROOT, "%-50s %-12s %-7.3f [%.3f, %.3f]    %-12.3g %-26s %-26s %s%n", t.name(),
                 c.rejections() + "/" + c.replications(), c.rejectionRate().estimate(), c.rejectionRate().lower(),
-                c.rejectionRate().upper(), c.uniformityPValue());
+                c.rejectionRate().upper(), c.uniformityPValue(), tailCell(tails, 1), tailCell(tails, 2),
+                tails.lowerTailDeparts() ? "departs" : "ok");
         }
         out.println();
         out.println("The pooled-rounds chi-square is shown only to illustrate a pitfall: it treats autocorrelated "

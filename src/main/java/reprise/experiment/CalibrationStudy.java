@@ -18,6 +18,7 @@ import reprise.sim.SimulationSpec;
 import reprise.sim.Simulator;
 import reprise.stats.Calibration;
 import reprise.stats.PooledRoundsIllustration;
+import reprise.stats.Regime;
 import reprise.stats.TestResult;
 
 /**
@@ -53,8 +54,8 @@ public final class CalibrationStudy {
     public static final List<BaseQuantity> Z_QUANTITIES = List.of(BaseQuantity.CC, BaseQuantity.CD, BaseQuantity.DC,
         BaseQuantity.DD, BaseQuantity.PAYOFF_X, BaseQuantity.PAYOFF_Y);
 
-    /** A state expected fewer times than this over one repetition's games gets a warning. */
-    public static final double SPARSE_STATE_COUNT = 20;
+    /** A state expected fewer times than this over one repetition's games gets a warning (check's rule too). */
+    public static final double SPARSE_STATE_COUNT = Regime.SPARSE_STATE_COUNT;
 
     private static final long GOLDEN = 0x9E3779B97F4A7C15L;
     private static final double INTERVAL_CONFIDENCE = 0.95;
@@ -173,9 +174,11 @@ public final class CalibrationStudy {
      * @param summary rejections at alpha, their rate with a 95% Wilson interval, the binomial check and
      *     the Kolmogorov-Smirnov uniformity p-value of {@code pValues}
      * @param note the test's note in the first repetition (method, dropped components), may be empty
+     * @param tails the rejection rates at 0.05, 0.01 and 0.001 with 95% Wilson intervals, and whether the
+     *     lower tail of {@code pValues} departs from uniform ({@link Calibration#tails})
      */
     public record TestCalibration(TestId test, int[] repetitionIndexes, double[] pValues,
-        Calibration.Summary summary, String note) {
+        Calibration.Summary summary, String note, Calibration.TailSummary tails) {
         /**
          * Copies the arrays.
          *
@@ -184,9 +187,11 @@ public final class CalibrationStudy {
          * @param pValues p-values
          * @param summary summary
          * @param note note
+         * @param tails tails
          */
         public TestCalibration {
             java.util.Objects.requireNonNull(test, "test");
+            java.util.Objects.requireNonNull(tails, "tails");
             repetitionIndexes = repetitionIndexes.clone();
             pValues = pValues.clone();
             if (repetitionIndexes.length != pValues.length) {
@@ -228,7 +233,9 @@ public final class CalibrationStudy {
      * @param tests one entry per test, in the order the tests first appeared
      * @param transitionsNote why there are no transition tests, or null
      * @param warnings one line per state whose expected tallied count over one repetition's games is
-     *     below {@link #SPARSE_STATE_COUNT}: tests that involve it rest on a poor normal approximation
+     *     below {@link #SPARSE_STATE_COUNT} (tests that involve it rest on a poor normal approximation), then
+     *     (under the true model only, where small p-values are false alarms) one per test whose p-values'
+     *     lower tail departs from uniform
      * @param roundsTotal tallied rounds over all repetitions
      */
     public record Result(int repetitions, double alpha, boolean trueModel, List<TestCalibration> tests,
@@ -286,23 +293,24 @@ public final class CalibrationStudy {
             double[] p = e.getValue().stream().mapToDouble(Double::doubleValue).toArray();
             int[] ks = indexes.get(e.getKey()).stream().mapToInt(Integer::intValue).toArray();
             out.add(new TestCalibration(e.getKey(), ks, p, Calibration.summarize(p, alpha, INTERVAL_CONFIDENCE),
-                notes.get(e.getKey())));
+                notes.get(e.getKey()), Calibration.tails(p, INTERVAL_CONFIDENCE)));
         }
-        return new Result(repetitions, alpha, trueModel(), out, exact.transitionsNote(), warnings(exact), rounds);
-    }
-
-    private List<String> warnings(CaseAnalysis.Exact exact) {
-        List<String> w = new ArrayList<>();
-        double[] mean = exact.moments().mean();
-        for (int s = 0; s < 4; s++) {
-            double expected = mean[s] * simulation.replicates();
-            if (expected > 0 && expected < SPARSE_STATE_COUNT) {
-                w.add(String.format(java.util.Locale.ROOT, "state %s: expected %.3g tallied rounds per repetition "
-                    + "(below %d); its z test and the frequency test rest on a poor normal approximation, use more "
-                    + "games", BaseQuantity.STATES.get(s).label(), expected, (int) SPARSE_STATE_COUNT));
+        List<String> warnings = warnings(exact);
+        for (TestCalibration t : out) {
+            if (trueModel() && !t.illustration() && t.tails().lowerTailDeparts()) {
+                t.tails().warnings().forEach(w -> warnings.add(t.name() + ": " + w));
             }
         }
-        return w;
+        return new Result(repetitions, alpha, trueModel(), out, exact.transitionsNote(), warnings, rounds);
+    }
+
+    /** The rare-state rule of {@link Regime#sparseStateWarnings}, the same as check's, per repetition's games. */
+    private List<String> warnings(CaseAnalysis.Exact exact) {
+        double[] expected = exact.moments().mean();
+        for (int s = 0; s < 4; s++) {
+            expected[s] *= simulation.replicates();
+        }
+        return new ArrayList<>(Regime.sparseStateWarnings(expected));
     }
 
     private record Repetition(Map<TestId, TestResult> tests, long rounds) {

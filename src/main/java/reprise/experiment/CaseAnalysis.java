@@ -1,7 +1,6 @@
 package reprise.experiment;
 
 import java.math.BigInteger;
-import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -21,6 +20,7 @@ import reprise.stats.Estimate;
 import reprise.stats.GameSummary;
 import reprise.stats.ReplicateInference;
 import reprise.stats.SnapshotTest;
+import reprise.stats.SparseCells;
 import reprise.stats.TestResult;
 import reprise.stats.TransitionTest;
 import reprise.stats.WaldTest;
@@ -43,8 +43,14 @@ public final class CaseAnalysis {
      */
     static final int SNAPSHOT_MONTE_CARLO = 20_000;
 
-    /** Cells of a transition row with a smaller expected count are pooled (Cochran 1954's rule of 5). */
-    static final double MINIMUM_EXPECTED_TRANSITIONS = 5;
+    /**
+     * Cells of a transition row with a smaller expected count are pooled (Cochran 1954's rule of 5) by
+     * {@link SparseCells#pool}: within a row, the cells in increasing order of expected count are grouped
+     * until each group reaches the minimum, so that the Pearson form's heavy right tail and the
+     * likelihood-ratio form's light one (measured with calibrate: 19% and 0% false alarms at alpha = 0.05
+     * for two noisy tf2t players) are avoided; the pooled probabilities stay in [0, 1].
+     */
+    static final double MINIMUM_EXPECTED_TRANSITIONS = SparseCells.COCHRAN_MINIMUM;
 
     private CaseAnalysis() {
     }
@@ -154,78 +160,6 @@ public final class CaseAnalysis {
     }
 
     /**
-     * Pools the sparse cells of each row of a transition table so that every cell left has an expected
-     * count n_i p0_ij of at least {@code minimum} (Cochran's rule): within a row, the positive-probability
-     * cells are taken in increasing order of expected count and grouped greedily until each group reaches
-     * the minimum; a short last group joins the one before it. A group's counts and probabilities are put
-     * in its first cell and the other cells get count 0 and probability 0, which the Anderson &amp; Goodman
-     * test leaves out, so the table stays square. Cells of probability 0 are not touched (a count there
-     * still makes the hypothesis impossible). The grouping depends on the row totals only, on which the
-     * test conditions.
-     *
-     * <p>Why: with expected counts below about 5 the Pearson form has a heavy right tail and the
-     * likelihood-ratio form a light one, so both are miscalibrated (measured with the calibrate command:
-     * 19% and 0% false alarms at alpha = 0.05 for two noisy tf2t players, whose 16 history rows are
-     * visited very unevenly).
-     *
-     * @return the number of cells merged into another
-     */
-    static int poolSparseCells(long[][] counts, double[][] p0, double minimum, long[][] outCounts,
-        double[][] outP0) {
-        int merged = 0;
-        int m = counts.length;
-        for (int i = 0; i < m; i++) {
-            long[] n = counts[i].clone();
-            double[] p = p0[i].clone();
-            long ni = 0;
-            for (long v : n) {
-                ni += v;
-            }
-            List<Integer> cells = new ArrayList<>();
-            for (int j = 0; j < m; j++) {
-                if (p[j] > 0) {
-                    cells.add(j);
-                }
-            }
-            double[] row = p0[i];
-            cells.sort(java.util.Comparator.comparingDouble(j -> row[j]));
-            List<List<Integer>> groups = new ArrayList<>();
-            List<Integer> group = new ArrayList<>();
-            double expected = 0;
-            for (int j : cells) {
-                group.add(j);
-                expected += ni * p0[i][j];
-                if (expected >= minimum) {
-                    groups.add(group);
-                    group = new ArrayList<>();
-                    expected = 0;
-                }
-            }
-            if (!group.isEmpty()) {
-                if (groups.isEmpty()) {
-                    groups.add(group);
-                } else {
-                    groups.get(groups.size() - 1).addAll(group);
-                }
-            }
-            for (List<Integer> g : groups) {
-                int first = g.get(0);
-                for (int k = 1; k < g.size(); k++) {
-                    int j = g.get(k);
-                    n[first] += n[j];
-                    p[first] += p[j];
-                    n[j] = 0;
-                    p[j] = 0;
-                    merged++;
-                }
-            }
-            outCounts[i] = n;
-            outP0[i] = p;
-        }
-        return merged;
-    }
-
-    /**
      * The note part saying that sparse transition cells were pooled, as written after a transition test's
      * note and quoted in the report's warnings.
      *
@@ -307,21 +241,36 @@ public final class CaseAnalysis {
         return Collections.unmodifiableMap(out);
     }
 
+    /**
+     * The simulated transition counts with sparse cells pooled against the exact transition matrix.
+     *
+     * @param exact the exact side
+     * @param r the simulation
+     * @return the pooled table, or null when the case has no transition test
+     */
+    static SparseCells.Pooled pooledTransitions(Exact exact, SimulationResult r) {
+        if (exact.transitions() == null) {
+            return null;
+        }
+        long[][] counts = exact.chain().size() == 4 ? r.transitionCounts() : r.historyTransitionCounts();
+        if (counts == null || counts.length != exact.transitions().length) {
+            return null;
+        }
+        return SparseCells.pool(counts, exact.transitions(), MINIMUM_EXPECTED_TRANSITIONS);
+    }
+
     private static void transitionTests(Exact exact, SimulationResult r, Map<TestId, TestResult> out) {
         if (exact.transitions() == null) {
             return;
         }
-        long[][] counts = exact.chain().size() == 4 ? r.transitionCounts() : r.historyTransitionCounts();
-        if (counts == null || counts.length != exact.transitions().length) {
+        SparseCells.Pooled pooled = pooledTransitions(exact, r);
+        if (pooled == null) {
             return;
         }
-        long[][] pooledCounts = new long[counts.length][];
-        double[][] pooledHypothesis = new double[counts.length][];
-        int merged = poolSparseCells(counts, exact.transitions(), MINIMUM_EXPECTED_TRANSITIONS, pooledCounts,
-            pooledHypothesis);
-        TestResult pearson = TransitionTest.withDefaults().test(pooledCounts, pooledHypothesis);
+        int merged = pooled.merged();
+        TestResult pearson = TransitionTest.withDefaults().test(pooled.counts(), pooled.hypothesis());
         TestResult lr = TransitionTest.withDefaults().with(TransitionTest.Form.LIKELIHOOD_RATIO)
-            .test(pooledCounts, pooledHypothesis);
+            .test(pooled.counts(), pooled.hypothesis());
         if (merged > 0) {
             String note = "; " + pooledCellsPhrase(merged);
             pearson = pearson.withSmallSample(note, TestResult.SmallSample.pooled(merged));

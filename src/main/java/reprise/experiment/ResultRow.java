@@ -27,10 +27,74 @@ import reprise.stats.TestResult;
  * @param note a short explanation (test used, bias, games needed), possibly empty
  * @param smallSample what the test did about small expected counts ({@code NONE} for rows without a test,
  *     and for rows read back from a file, which keeps only the note)
+ * @param diagnosis the regime of the row and how its p-values and interval were made ({@link Diagnosis#NONE}
+ *     for rows without one)
  */
 public record ResultRow(int caseIndex, String caseId, Subject subject, ComparisonKind comparisonKind,
     double predicted, double observed, double lower, double upper, double statistic, double degreesOfFreedom,
-    double pValue, double adjustedP, Verdict verdict, String note, TestResult.SmallSample smallSample) {
+    double pValue, double adjustedP, Verdict verdict, String note, TestResult.SmallSample smallSample,
+    Diagnosis diagnosis) {
+
+    /**
+     * How far a row's approximations can be trusted, and what was used instead where they could not
+     * (issue 12's columns of results.csv, written after the older ones).
+     *
+     * @param regime the regime of the quantity or of the worst state, e.g. "sparse: 3.2 informative games of
+     *     10, skewness 7.1", or empty
+     * @param informativeGames expected games in which the quantity is not at its modal value, or NaN
+     * @param skewness skewness of one game's value (of the worst state for joint tests), or NaN
+     * @param minimumExpectedCount the smallest expected count that the test's reference rests on (state,
+     *     cell or snapshot category), or NaN
+     * @param pMethod how the p-value was found: "asymptotic", "monte-carlo", "exact", "interval" (inverted
+     *     from the reported interval family), or empty
+     * @param monteCarloDraws studies drawn from the exact model for the p-value, or NaN
+     * @param intervalMethod how the interval was made: "t", "effective-size", "finite-sample", "constant", or
+     *     empty
+     * @param agreeP the p-value for "|d| &lt; h" (TOST), NaN for rows without a tolerance
+     * @param agreeAdjustedP it after the multiple-testing correction
+     * @param disagreeP the p-value for "|d| &gt; h" (rows with a tolerance) or "any difference" (the others),
+     *     the one whose adjusted value is {@code adjustedP}
+     */
+    public record Diagnosis(String regime, double informativeGames, double skewness, double minimumExpectedCount,
+        String pMethod, double monteCarloDraws, String intervalMethod, double agreeP, double agreeAdjustedP,
+        double disagreeP) {
+
+        /** No diagnosis. */
+        public static final Diagnosis NONE = new Diagnosis("", Double.NaN, Double.NaN, Double.NaN, "", Double.NaN,
+            "", Double.NaN, Double.NaN, Double.NaN);
+
+        /**
+         * Validates.
+         *
+         * @param regime not null
+         * @param informativeGames any
+         * @param skewness any
+         * @param minimumExpectedCount any
+         * @param pMethod not null
+         * @param monteCarloDraws any
+         * @param intervalMethod not null
+         * @param agreeP NaN or a probability
+         * @param agreeAdjustedP NaN or a probability
+         * @param disagreeP NaN or a probability
+         */
+        public Diagnosis {
+            Objects.requireNonNull(regime, "regime");
+            Objects.requireNonNull(pMethod, "p-value method");
+            Objects.requireNonNull(intervalMethod, "interval method");
+            probabilityOrNaN("agreement p-value", agreeP);
+            probabilityOrNaN("adjusted agreement p-value", agreeAdjustedP);
+            probabilityOrNaN("disagreement p-value", disagreeP);
+        }
+
+        /**
+         * @param adjusted the adjusted agreement p-value
+         * @return a copy with it
+         */
+        public Diagnosis withAgreeAdjusted(double adjusted) {
+            return new Diagnosis(regime, informativeGames, skewness, minimumExpectedCount, pMethod, monteCarloDraws,
+                intervalMethod, agreeP, adjusted, disagreeP);
+        }
+    }
 
     /**
      * Validates the row.
@@ -50,6 +114,7 @@ public record ResultRow(int caseIndex, String caseId, Subject subject, Compariso
      * @param verdict not null
      * @param note not null
      * @param smallSample not null
+     * @param diagnosis not null
      */
     public ResultRow {
         if (caseIndex < 0) {
@@ -61,6 +126,7 @@ public record ResultRow(int caseIndex, String caseId, Subject subject, Compariso
         Objects.requireNonNull(verdict, "verdict");
         Objects.requireNonNull(note, "note");
         Objects.requireNonNull(smallSample, "small-sample method");
+        Objects.requireNonNull(diagnosis, "diagnosis");
         if (lower > upper) {
             throw new IllegalArgumentException("interval lower end above upper end: [" + lower + ", " + upper + "]");
         }
@@ -112,7 +178,20 @@ public record ResultRow(int caseIndex, String caseId, Subject subject, Compariso
      */
     public ResultRow adjusted(double p, Verdict v) {
         return new ResultRow(caseIndex, caseId, subject, comparisonKind, predicted, observed, lower, upper, statistic,
-            degreesOfFreedom, pValue, p, v, note, smallSample);
+            degreesOfFreedom, pValue, p, v, note, smallSample, diagnosis);
+    }
+
+    /**
+     * The same row with the adjusted p-values and verdict replaced.
+     *
+     * @param p the adjusted p-value of the "disagrees" test
+     * @param agree the adjusted p-value of the "agrees" test (NaN for rows without a tolerance)
+     * @param v the verdict
+     * @return a new row
+     */
+    public ResultRow adjusted(double p, double agree, Verdict v) {
+        return new ResultRow(caseIndex, caseId, subject, comparisonKind, predicted, observed, lower, upper, statistic,
+            degreesOfFreedom, pValue, p, v, note, smallSample, diagnosis.withAgreeAdjusted(agree));
     }
 
     /** Collects a row's values; {@link #build()} validates them. */
@@ -132,6 +211,7 @@ public record ResultRow(int caseIndex, String caseId, Subject subject, Compariso
         private Verdict verdict = Verdict.INCONCLUSIVE;
         private String note = "";
         private TestResult.SmallSample smallSample = TestResult.SmallSample.NONE;
+        private Diagnosis diagnosis = Diagnosis.NONE;
 
         private Builder(int caseIndex, String caseId, Subject subject, ComparisonKind kind) {
             this.caseIndex = caseIndex;
@@ -228,10 +308,19 @@ public record ResultRow(int caseIndex, String caseId, Subject subject, Compariso
             return this;
         }
 
+        /**
+         * @param d the diagnosis
+         * @return this builder
+         */
+        public Builder diagnosis(Diagnosis d) {
+            diagnosis = d;
+            return this;
+        }
+
         /** @return the validated row */
         public ResultRow build() {
             return new ResultRow(caseIndex, caseId, subject, kind, predicted, observed, lower, upper, statistic,
-                degreesOfFreedom, pValue, adjustedP, verdict, note, smallSample);
+                degreesOfFreedom, pValue, adjustedP, verdict, note, smallSample, diagnosis);
         }
     }
 }

@@ -10,7 +10,9 @@ import reprise.sim.ProgressListener;
 import reprise.sim.SimulationResult;
 import reprise.sim.SimulationSpec;
 import reprise.sim.Simulator;
+import reprise.stats.Equivalence;
 import reprise.stats.MultipleTesting;
+import reprise.stats.Regime;
 
 /**
  * Runs an experiment: per case the exact side and the simulation, then the comparisons with the
@@ -201,6 +203,13 @@ public final class Runner {
             warnings.add(String.format(Locale.ROOT, "%d of %d games ended within the burn-in and count as empty "
                 + "games", sim.replicates() - sim.gamesTallied(), sim.replicates()));
         }
+        if (exact != null) {
+            double[] expected = exact.moments().mean();
+            for (int s = 0; s < 4; s++) {
+                expected[s] *= sim.replicates();
+            }
+            warnings.addAll(Regime.sparseStateWarnings(expected));
+        }
         return new CaseResult(c, caseSeed(e.seed(), c.index()), sim, exact, exact == null ? warnings.get(0) : null,
             warnings);
     }
@@ -218,35 +227,59 @@ public final class Runner {
         for (CaseResult r : results) {
             pending.addAll(Comparisons.rows(e, r, claims.get(r.c().index())));
         }
-        List<Integer> diff = new ArrayList<>();
-        List<Integer> equiv = new ArrayList<>();
+        double threshold = correctedThreshold(e, pending);
+        pending.replaceAll(p -> p.at(threshold));
+        List<Integer> disagree = new ArrayList<>();
+        List<Integer> agree = new ArrayList<>();
         for (int i = 0; i < pending.size(); i++) {
             Comparisons.Pending p = pending.get(i);
-            if (p.counts() && Double.isFinite(p.row().pValue())) {
-                diff.add(i);
+            if (p.counts() && Double.isFinite(p.disagreeP())) {
+                disagree.add(i);
             }
             if (p.counts() && p.margin() && Double.isFinite(p.equivalenceP())) {
-                equiv.add(i);
+                agree.add(i);
             }
         }
-        double[] byRowDiff = byRow(pending.size(), diff, adjust(e, pending, diff, true));
-        double[] byRowEquiv = byRow(pending.size(), equiv, adjust(e, pending, equiv, false));
+        double[] byRowDisagree = byRow(pending.size(), disagree, adjust(e, pending, disagree, true));
+        double[] byRowAgree = byRow(pending.size(), agree, adjust(e, pending, agree, false));
         List<ResultRow> rows = new ArrayList<>();
         boolean disagrees = false;
         for (int i = 0; i < pending.size(); i++) {
             Comparisons.Pending p = pending.get(i);
-            Verdict v = verdict(e, p, byRowDiff[i], byRowEquiv[i]);
-            rows.add(p.row().adjusted(p.counts() ? byRowDiff[i] : Double.NaN, v));
+            Verdict v = verdict(e, p, byRowDisagree[i], byRowAgree[i]);
+            rows.add(p.row().adjusted(p.counts() ? byRowDisagree[i] : Double.NaN, p.counts() ? byRowAgree[i]
+                : Double.NaN, v));
             disagrees |= p.counts() && v == Verdict.DISAGREES;
         }
         double alpha = e.alpha();
         List<String> warnings = new ArrayList<>();
-        if (e.correction() == Experiment.Correction.NONE && diff.size() > MANY_TESTS) {
-            warnings.add(diff.size() + " tests were made without a multiple-testing correction: at alpha = " + alpha
-                + " about " + Math.round(diff.size() * alpha) + " false alarms are expected even if every prediction "
-                + "is right (use correction: holm)");
+        if (e.correction() == Experiment.Correction.NONE && disagree.size() > MANY_TESTS) {
+            warnings.add(disagree.size() + " tests were made without a multiple-testing correction: at alpha = " + alpha
+                + " about " + Math.round(disagree.size() * alpha) + " false alarms are expected even if every "
+                + "prediction is right (use correction: holm)");
+        }
+        long rare = results.stream().filter(r -> r.warnings().stream().anyMatch(w -> w.startsWith(RARE_STATE))).count();
+        if (rare > 0) {
+            warnings.add(rare + " of " + results.size() + " cases have a state expected fewer than "
+                + (int) Regime.SPARSE_STATE_COUNT + " times over their games: their tests use finite-sample intervals "
+                + "and Monte Carlo p-values under the exact model where the normal approximation is not trusted "
+                + "(listed in report.md)");
         }
         return new Outcome(rows, warnings, disagrees);
+    }
+
+    /** The start of the rare-state warning of a case (the rule of {@link Regime#sparseStateWarnings}). */
+    static final String RARE_STATE = "state ";
+
+    /**
+     * The smallest threshold the correction will apply to one p-value: alpha / m for Holm and
+     * Benjamini-Hochberg (their first step), alpha without a correction; m is the number of rows that can
+     * make the experiment disagree.
+     */
+    private static double correctedThreshold(Experiment e, List<Comparisons.Pending> pending) {
+        long m = pending.stream().filter(p -> p.counts() && (Double.isFinite(p.disagreeP()) || p.refine() != null))
+            .count();
+        return e.correction() == Experiment.Correction.NONE || m <= 1 ? e.alpha() : e.alpha() / m;
     }
 
     /** Adjusted p-values spread back to their rows; NaN for rows not in {@code idx}. */
@@ -260,30 +293,33 @@ public final class Runner {
     }
 
     /**
-     * The final verdict of a row from its adjusted p-values: a row with a margin disagrees when the
-     * difference test rejects and the estimate lies outside the tolerance, agrees when the equivalence
-     * test rejects, and is inconclusive otherwise; a row without a margin is consistent or disagrees. Rows
-     * that do not count, or have no p-value, keep their provisional verdict.
+     * The final verdict of a row from its adjusted p-values. A row with a margin: {@link Equivalence#verdict}
+     * (agrees = |d| &lt; h shown, its adjusted TOST p-value below alpha; disagrees = |d| &gt; h shown, its
+     * adjusted non-equivalence p-value below alpha; otherwise inconclusive). A row without a margin is
+     * consistent or disagrees (its adjusted difference p-value below alpha). Rows that do not count, or
+     * have no p-value, keep their provisional verdict.
      */
-    private static Verdict verdict(Experiment e, Comparisons.Pending p, double adjustedDiff, double adjustedEquiv) {
+    private static Verdict verdict(Experiment e, Comparisons.Pending p, double adjustedDisagree, double adjustedAgree) {
         ResultRow row = p.row();
-        if (!p.counts() || !Double.isFinite(row.pValue())) {
+        if (!p.counts() || !Double.isFinite(p.disagreeP())) {
             return row.verdict();
         }
-        boolean rejected = adjustedDiff < e.alpha();
         if (!p.margin()) {
-            return rejected ? Verdict.DISAGREES : Verdict.CONSISTENT;
+            return adjustedDisagree < e.alpha() ? Verdict.DISAGREES : Verdict.CONSISTENT;
         }
-        boolean outside = Math.abs(row.observed() - row.predicted()) > e.tolerance();
-        return rejected && outside ? Verdict.DISAGREES : adjustedEquiv < e.alpha() ? Verdict.AGREES
-            : Verdict.INCONCLUSIVE;
+        double agreeP = Double.isFinite(adjustedAgree) ? adjustedAgree : 1;
+        return switch (Equivalence.verdict(agreeP, adjustedDisagree, e.alpha())) {
+            case AGREES -> Verdict.AGREES;
+            case DISAGREES -> Verdict.DISAGREES;
+            default -> Verdict.INCONCLUSIVE;
+        };
     }
 
     private static double[] adjust(Experiment e, List<Comparisons.Pending> pending, List<Integer> idx, boolean diff) {
         double[] p = new double[idx.size()];
         for (int k = 0; k < p.length; k++) {
             Comparisons.Pending r = pending.get(idx.get(k));
-            p[k] = diff ? r.row().pValue() : r.equivalenceP();
+            p[k] = diff ? r.disagreeP() : r.equivalenceP();
         }
         if (p.length == 0) {
             return p;

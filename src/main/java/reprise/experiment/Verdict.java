@@ -6,9 +6,9 @@ import java.util.Locale;
  * The plain-words outcome of one comparison.
  *
  * <p>For a comparison with an equivalence margin h (each quantity against the exact value, a claim, a
- * stationary value): {@link #AGREES} when two one-sided tests show the difference lies within +-h;
- * {@link #DISAGREES} when the difference test rejects after the multiple-testing correction and the
- * estimate lies outside +-h; {@link #INCONCLUSIVE} otherwise (more games are needed). For a test without
+ * stationary value): {@link #AGREES} when |d| &lt; h is shown (two one-sided tests, after the
+ * multiple-testing correction); {@link #DISAGREES} when |d| &gt; h is shown (the non-equivalence test,
+ * after the correction); {@link #INCONCLUSIVE} otherwise (more games are needed). For a test without
  * a margin (Wald, transitions, snapshots): {@link #CONSISTENT} when it does not reject after correction,
  * {@link #DISAGREES} when it does. {@link #NO_PREDICTION} when the exact engine has nothing to compare
  * with (user-written agents).
@@ -18,7 +18,7 @@ public enum Verdict {
     AGREES,
     /** No significant difference (a test without a margin). */
     CONSISTENT,
-    /** A significant difference (larger than the tolerance where one applies). */
+    /** Shown to differ: |d| &gt; h where a tolerance applies, any difference otherwise. */
     DISAGREES,
     /** Neither shown: more data needed. */
     INCONCLUSIVE,

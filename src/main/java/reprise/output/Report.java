@@ -279,16 +279,23 @@ public final class Report {
         "- **Many tests.** Every p-value is adjusted across the whole experiment by the correction named above "
             + "(Holm controls the chance of any false alarm; Benjamini-Hochberg the expected share of false alarms "
             + "among the alarms). With no correction, about alpha of all true comparisons still disagree by chance.",
-        "- **What \"agrees\" means.** A quantity *agrees* when two one-sided tests (Schuirmann 1987) show that its "
-            + "difference from the prediction lies within the tolerance; it *disagrees* when the difference is "
-            + "significant after the correction and larger than the tolerance; otherwise it is *inconclusive* and "
-            + "more games are needed. A test without a tolerance (Wald, transitions, snapshots) is *consistent* "
-            + "when it does not reject. Not rejecting is not proof: it says the data show no difference at this "
-            + "sample size.",
-        "- **Large-sample approximations.** The Wald, z and transition tests use chi-square and normal reference "
-            + "distributions; the snapshot test switches to an exact multinomial test when expected counts are "
-            + "small. For games of random length, per-round values are E[total] / E[length] (ratio of "
-            + "expectations), not the mean of per-game averages.",
+        "- **What the words mean.** A quantity *agrees* when its difference d from the prediction is shown to lie "
+            + "within the tolerance h (|d| < h, two one-sided tests, Schuirmann 1987, corrected); it *disagrees* when "
+            + "|d| > h is shown (corrected); otherwise it is *inconclusive* and more games are needed. A test without "
+            + "a tolerance (Wald, transitions, snapshots) tests any difference: *consistent* when it does not reject "
+            + "after the correction, *disagrees* when it does. Not rejecting is not proof: it says the data show no "
+            + "difference at this sample size.",
+        "- **Approximations, and what is done when they are not trusted.** The regime of every row (results.csv: "
+            + "regime, informative_games, skewness, min_expected_count) comes from games drawn from the exact model. "
+            + "The t-interval is used only where few-games effects are small; otherwise the interval is a "
+            + "finite-sample one (games of one length: valid for any distribution, conservative) or the "
+            + "effective-size interval (random lengths, skewed proportions: approximate), always inside the "
+            + "quantity's range, never a point because the games happened to be identical. Where the chi-square or "
+            + "normal tail is not trusted at the corrected threshold (alpha / m), the p-value is a Monte Carlo "
+            + "p-value under the exact model, or an exact multinomial test for a snapshot (p_method, mc_draws); "
+            + "if the budget cannot resolve the threshold the row is inconclusive, with the reason in its note. "
+            + "For games of random length, per-round values are E[total] / E[length] (ratio of expectations), not "
+            + "the mean of per-game averages.",
         "");
 
     /**

@@ -24,7 +24,13 @@ import reprise.game.Horizon;
  *
  * <p>Columns: case, pair, x, y, noise, misperception, horizon, horizon_value, one {@code param_NAME} per grid
  * parameter, quantity, comparison, predicted, observed, ci_lower, ci_upper, statistic, df, p_value,
- * p_adjusted, verdict, note. Numbers are written with {@link Double#toString(double)} (they read back to
+ * p_adjusted, verdict, note, then the diagnosis columns ({@link #DIAGNOSIS_COLUMNS}, after the older ones
+ * so that readers of the earlier layout keep working): regime, informative_games, skewness,
+ * min_expected_count, p_method, mc_draws, interval_method, p_agree, p_agree_adjusted, p_disagree.
+ * {@code p_value} is the p-value of the row's statistic (for a quantity: its z or t difference test);
+ * {@code p_adjusted} is the corrected p-value of the row's "disagrees" test ({@code p_disagree}: |d| &gt; h
+ * for rows with a tolerance, any difference for the distribution tests), so a counting row disagrees iff
+ * p_adjusted &lt; alpha; {@code p_agree_adjusted} &lt; alpha is "agrees". Numbers are written with {@link Double#toString(double)} (they read back to
  * the same double); a number that does not apply is an empty cell.
  */
 public final class ResultsCsv {
@@ -35,6 +41,9 @@ public final class ResultsCsv {
     /** The columns after the parameters. */
     public static final List<String> RESULT_COLUMNS = List.of("quantity", "comparison", "predicted", "observed",
         "ci_lower", "ci_upper", "statistic", "df", "p_value", "p_adjusted", "verdict", "note");
+    /** The diagnosis columns, at the end of each row (see {@link ResultRow.Diagnosis}). */
+    public static final List<String> DIAGNOSIS_COLUMNS = List.of("regime", "informative_games", "skewness",
+        "min_expected_count", "p_method", "mc_draws", "interval_method", "p_agree", "p_agree_adjusted", "p_disagree");
 
     private ResultsCsv() {
     }
@@ -51,6 +60,7 @@ public final class ResultsCsv {
         List<String> header = new ArrayList<>(CASE_COLUMNS);
         parameters.forEach(p -> header.add("param_" + p));
         header.addAll(RESULT_COLUMNS);
+        header.addAll(DIAGNOSIS_COLUMNS);
         AtomicFiles.writeText(file, w -> {
             try (CSVPrinter out = new CSVPrinter(w, CSVFormat.DEFAULT.builder().setHeader(header.toArray(String[]::new))
                 .setRecordSeparator('\n').build())) {
@@ -69,6 +79,17 @@ public final class ResultsCsv {
                     cells.add(num(r.adjustedP()));
                     cells.add(r.verdict().word());
                     cells.add(r.note());
+                    ResultRow.Diagnosis d = r.diagnosis();
+                    cells.add(d.regime());
+                    cells.add(num(d.informativeGames()));
+                    cells.add(num(d.skewness()));
+                    cells.add(num(d.minimumExpectedCount()));
+                    cells.add(d.pMethod());
+                    cells.add(num(d.monteCarloDraws()));
+                    cells.add(d.intervalMethod());
+                    cells.add(num(d.agreeP()));
+                    cells.add(num(d.agreeAdjustedP()));
+                    cells.add(num(d.disagreeP()));
                     out.printRecord(cells);
                 }
             }
@@ -123,12 +144,22 @@ public final class ResultsCsv {
                     .observed(parse(rec.get("observed"))).interval(parse(rec.get("ci_lower")), parse(rec.get("ci_upper")))
                     .test(parse(rec.get("statistic")), parse(rec.get("df")), parse(rec.get("p_value")))
                     .adjustedP(parse(rec.get("p_adjusted"))).verdict(Verdict.ofWord(rec.get("verdict")))
-                    .note(rec.get("note")).build());
+                    .note(rec.get("note")).diagnosis(diagnosis(rec, header)).build());
             }
         } catch (IOException e) {
             throw new IllegalArgumentException(file + ": cannot be read: " + e.getMessage(), e);
         }
         return rows;
+    }
+
+    private static ResultRow.Diagnosis diagnosis(CSVRecord rec, Map<String, Integer> header) {
+        if (!header.containsKey("p_disagree")) {
+            return ResultRow.Diagnosis.NONE;
+        }
+        return new ResultRow.Diagnosis(rec.get("regime"), parse(rec.get("informative_games")),
+            parse(rec.get("skewness")), parse(rec.get("min_expected_count")), rec.get("p_method"),
+            parse(rec.get("mc_draws")), rec.get("interval_method"), parse(rec.get("p_agree")),
+            parse(rec.get("p_agree_adjusted")), parse(rec.get("p_disagree")));
     }
 
     static String num(double v) {

@@ -155,6 +155,62 @@ public final class Equivalence {
             + brief(interval.upper()) + "] against [" + brief(lo) + ", " + brief(hi) + "]");
     }
 
+    /**
+     * The TOST and non-equivalence p-values of a family of nested intervals, by inversion: with I(c) the
+     * interval at confidence c (wider as c grows),
+     * p_eq = inf { a : I(1 - 2a) lies inside (target - h, target + h) } and
+     * p_neq = inf { a : I(1 - 2a) lies entirely outside [target - h, target + h] }, each 1 when no a in
+     * (0, 0.5) qualifies. If every I(c) has coverage at least c for the true mean mu, then under |mu - target|
+     * &ge; h P(p_eq &le; u) &le; u, and under |mu - target| &le; h P(p_neq &le; u) &le; u: both are valid
+     * p-values (the interval-inclusion form of TOST, Berger &amp; Hsu 1996), which a multiple-testing
+     * correction can adjust. Found by bisection on log a over [1e-12, 0.5) to a relative precision of about
+     * 1% (a value below 1e-12 is reported as 1e-12, except for a point interval, which is certain: 0).
+     *
+     * @param intervalAtLevel I(c) for c in (0, 1)
+     * @param target the value compared with
+     * @param tolerance h &gt; 0
+     * @return {p_eq, p_neq}
+     */
+    public static double[] intervalPValues(java.util.function.DoubleFunction<Interval> intervalAtLevel, double target,
+                                           double tolerance) {
+        Checks.finite("target", target);
+        double h = Checks.positive("tolerance h", tolerance);
+        java.util.function.DoublePredicate inside = a -> {
+            Interval i = intervalAtLevel.apply(1 - 2 * a);
+            return target - h < i.lower() && i.upper() < target + h;
+        };
+        java.util.function.DoublePredicate outside = a -> {
+            Interval i = intervalAtLevel.apply(1 - 2 * a);
+            return i.upper() < target - h || i.lower() > target + h;
+        };
+        Interval narrow = intervalAtLevel.apply(1 - 2 * SMALLEST_LEVEL);
+        boolean point = narrow.lower() == narrow.upper();
+        return new double[] {invert(inside, point), invert(outside, point)};
+    }
+
+    private static final double SMALLEST_LEVEL = 1e-12;
+    private static final double LARGEST_LEVEL = 0.4999;
+
+    private static double invert(java.util.function.DoublePredicate holds, boolean point) {
+        if (!holds.test(LARGEST_LEVEL)) {
+            return 1;
+        }
+        if (holds.test(SMALLEST_LEVEL)) {
+            return point ? 0 : SMALLEST_LEVEL;
+        }
+        double lo = Math.log(SMALLEST_LEVEL);
+        double hi = Math.log(LARGEST_LEVEL);
+        while (hi - lo > 0.01) {
+            double mid = 0.5 * (lo + hi);
+            if (holds.test(Math.exp(mid))) {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        return Math.exp(hi);
+    }
+
     /** Six significant digits without trailing zeros. */
     private static String brief(double v) {
         return new java.math.BigDecimal(String.format(Locale.ROOT, "%.6g", v)).stripTrailingZeros().toPlainString();

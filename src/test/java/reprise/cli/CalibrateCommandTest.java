@@ -164,4 +164,30 @@ class CalibrateCommandTest {
         assertEquals("", r.out());
         assertTrue(r.err().contains("calibrate needs --rounds N or --continuation DELTA"), r.err());
     }
+
+    /**
+     * Issue 12: calibrate sees the tails. tft vs gtft at 0.3% error, 20 rounds, 100 games (DD expected
+     * 0.34 times per repetition): at alpha 0.05 the Wald test looks calibrated, but its p-values fall below
+     * 0.001 in about 2% of repetitions (measured 20 of 1000, seed 11). With 500 repetitions the warning
+     * needs at least 4 such p-values (one-sided binomial tail below 0.01 / 3 at rate 0.001); at the measured
+     * rate 0.02, P(Binomial(500, 0.02) &lt; 4) = 4e-4, the false-failure budget. The JSON carries the rates
+     * at 0.05, 0.01 and 0.001 with their intervals, and the table their columns.
+     */
+    @Test
+    void reportsTheTailsAndWarnsWhenTheLowerTailDeparts() throws Exception {
+        String[] args = {"calibrate", "--x", "tft", "--y", "gtft", "--noise", "0.003", "--rounds", "20",
+            "--replicates", "100", "--repetitions", "500", "--seed", "11", "--quiet"};
+        Run table = run(args);
+        assertTrue(table.out().contains("p < 0.001: rate [95%]"), table.out());
+        assertTrue(table.out().contains("warning: frequencies (Wald): p < 0.001 in "), table.out());
+        assertTrue(table.out().contains("warning: state DD: expected 0.344 tallied rounds"), table.out());
+        Run json = run(Stream.concat(Stream.of(args), Stream.of("--json")).toArray(String[]::new));
+        JsonNode j = Json.MAPPER.readTree(json.out());
+        JsonNode wald = j.get("tests").get(0);
+        assertEquals("frequencies (Wald)", wald.get("name").asText());
+        assertEquals(3, wald.get("tails").size());
+        assertEquals(0.001, wald.get("tails").get(2).get("level").asDouble());
+        assertTrue(wald.get("tails").get(2).get("lower").asDouble() > 0.001, wald.toString());
+        assertTrue(wald.get("lower_tail_departs").asBoolean(), wald.toString());
+    }
 }
