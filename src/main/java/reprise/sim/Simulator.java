@@ -27,7 +27,8 @@ import reprise.game.Strategy;
  * Two memory-one players take a fused, equally distributed fast path unless {@link Enactment#LITERAL}
  * is asked for (see {@code FusedMemoryOneKernel}); with a fixed horizon the games of a chunk are then
  * played in lockstep blocks ({@code LockstepKernel}: the same draws and decisions, so the same results,
- * compiled to SIMD instructions). Everything else takes the literal path with one draw per uncertain
+ * compiled to SIMD instructions; {@code SimdLockstepKernel} the same with the JDK's vector API where the VM
+ * provides it, see {@link #kernel()}). Everything else takes the literal path with one draw per uncertain
  * event.
  *
  * <p>Reproducibility: game i is a function of (seed, i) only (see {@link #replicateGenerator}). Work is
@@ -242,7 +243,8 @@ public final class Simulator {
      * The engine of one worker. On the fused path with a fixed horizon and chunks of at least
      * {@link #LOCKSTEP_MIN_GAMES} games, the games of a chunk are played in lockstep blocks
      * ({@link LockstepKernel}, the same draws and decisions as the per-game fused kernel, so the choice
-     * changes speed only).
+     * changes speed only), in the vector API's registers ({@link SimdLockstepKernel}) where the VM has the
+     * module and the plan is the plain one that kernel takes.
      */
     private Worker worker(long chunk) {
         Match m = spec.match();
@@ -250,6 +252,9 @@ public final class Simulator {
         if (fast) {
             FusedTables t = fusedTables();
             if (plan.fixedRounds() > 0 && chunk >= LOCKSTEP_MIN_GAMES) {
+                if (VectorModule.available() && SimdLockstepKernel.supports(plan, t)) {
+                    return SimdLockstepKernel.create(plan, acc, t);
+                }
                 return new LockstepKernel(plan, acc, t);
             }
             return new FusedMemoryOneKernel(plan, acc, t);
@@ -260,6 +265,34 @@ public final class Simulator {
         return new AgentKernel(plan, acc, Agents.create(m.x()), Agents.create(m.y()), m.noise());
     }
 
+    /**
+     * The engine a run of all replicates uses, for reports: {@code "lockstep-simd"} (lockstep blocks in
+     * the vector API's 512-bit vectors), {@code "lockstep"} (lockstep blocks the JIT vectorises),
+     * {@code "per-game"} (the fused path one game at a time), {@code "literal"} or {@code "agent"}. The
+     * choice never changes a result.
+     *
+     * @return the engine's name
+     */
+    public String kernel() {
+        if (fast) {
+            if (!playsInLockstep()) {
+                return "per-game";
+            }
+            return VectorModule.available() && SimdLockstepKernel.supports(plan, fusedTables()) ? "lockstep-simd"
+                : "lockstep";
+        }
+        return tables ? "literal" : "agent";
+    }
+
+    /**
+     * Why the vector API engine is or is not available in this VM, in one line ("available" when it is).
+     *
+     * @return the status
+     */
+    public static String vectorStatus() {
+        return VectorModule.status();
+    }
+
     /** Whether a run of all replicates plays games in lockstep blocks (a testing hook). */
     boolean playsInLockstep() {
         return fast && plan.fixedRounds() > 0 && chunkSize() >= LOCKSTEP_MIN_GAMES;
@@ -268,6 +301,17 @@ public final class Simulator {
     /** Testing hook: the lockstep kernel on one thread, with a limit for per-block statistics. */
     SimulationResult simulateLockstep(long from, long to, long blockStatisticsLength) {
         return runAlone(from, to, acc -> new LockstepKernel(plan, acc, fusedTables(), blockStatisticsLength));
+    }
+
+    /** Testing hook: the vector API lockstep kernel on one thread (only where it is available and applies). */
+    SimulationResult simulateSimd(long from, long to) {
+        return runAlone(from, to, acc -> SimdLockstepKernel.create(plan, acc, fusedTables()));
+    }
+
+    /** Whether the vector API lockstep kernel can play this spec in this VM (a testing hook). */
+    boolean simdApplies() {
+        return fast && plan.fixedRounds() > 0 && VectorModule.available()
+            && SimdLockstepKernel.supports(plan, fusedTables());
     }
 
     /** Testing hook: the per-game fused kernel on one thread, whatever the horizon and chunking. */

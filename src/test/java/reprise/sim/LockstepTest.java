@@ -86,6 +86,35 @@ class LockstepTest {
         assertEquals(perGame, lockstep.run(), "lockstep on 2 threads, chunks of 97 games");
         assertEquals(perGame, new Simulator(spec.withThreads(1)).run(), "default chunks, 1 thread");
         assertEquals(perGame, lockstep.simulateLockstep(0, replicates, 0), "per-game statistics branch");
+        assertEquals(perGame, lockstep.simulateLockstep(0, replicates, LaneCounters.BLOCK_STATISTICS_LENGTH),
+            "auto-vectorised lockstep kernel, whatever the VM offers");
+
+        // the vector API kernel takes only plans without burn-in, snapshots and time-resolved rounds
+        SimulationSpec plain = SimulationSpec.of(DeterminismTest.match(x, y, noise), Horizon.rounds(n), replicates,
+            700 + c);
+        Simulator simd = new Simulator(plain, 97);
+        if (simd.simdApplies()) {
+            SimulationResult expected = new Simulator(plain).simulatePerGame(0, replicates);
+            assertEquals(expected, simd.simulateSimd(0, replicates), "vector API kernel");
+            assertEquals(expected, new Simulator(plain.withThreads(2), 97).run(), "2 threads, chunks of 97 games");
+            assertEquals("lockstep-simd", simd.kernel());
+        }
+    }
+
+    /**
+     * The build runs the tests with the export that lets the vector API be loaded, as the jar's manifest
+     * does; so unless it is turned off, the vector kernel must be in use (and compared above).
+     */
+    @Test
+    void vectorKernelIsAvailableUnderTest() {
+        org.junit.jupiter.api.Assumptions.assumeFalse("off".equals(System.getProperty("reprise.simd")),
+            "vector kernel turned off");
+        assertEquals("available", Simulator.vectorStatus());
+        SimulationSpec spec = SimulationSpec.of(DeterminismTest.match("wsls", "tft", Noise.symmetric(0.01, 0)),
+            Horizon.rounds(200), 1000, 1);
+        assertEquals("lockstep-simd", new Simulator(spec).kernel());
+        assertEquals("lockstep", new Simulator(spec.withBurnIn(5)).kernel(), "burn-in: the auto-vectorised kernel");
+        assertTrue(new Simulator(spec).simdApplies());
     }
 
     @Test

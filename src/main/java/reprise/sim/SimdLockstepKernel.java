@@ -1,0 +1,196 @@
+package reprise.sim;
+
+import jdk.incubator.vector.LongVector;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
+
+/**
+ * {@link LockstepKernel} written with the JDK's vector API: the same games, draws, decisions and
+ * counters, so the same tallies bit for bit, with the lanes held in 512-bit vectors of 8 games.
+ *
+ * <p>Implementation note. A block of up to 256 games is played in stretches of at most 15 rounds (one
+ * fill of the 4-bit transition counters of {@link LaneCounters}). For each vector of 8 lanes, one method
+ * steps the 8 generators through the stretch with their words in registers and writes the draws to a
+ * small buffer (15 vectors, in the L1 cache); a second method reads them back and decides and counts the
+ * stretch with the players' last moves (masks, 0 cooperated or -1 defected) and the lanes' counters in
+ * registers. Per round and vector that is nine operations for XoRoShiRo128++, six to select the packed
+ * limits of the last state (c0 + (my &amp; c1) + (mx &amp; (c2 + (my &amp; c3))), as in
+ * {@code LockstepKernel.DecidePacked}), eight for the two decisions and seven to add 1 &lt;&lt; 4 (4 s + s')
+ * to the counters with one per-lane variable shift. The work is split in two methods because C2 (JDK 17)
+ * stops inlining the vector API's methods once a compilation holds about 18,000 nodes
+ * ({@code NodeCountInliningCutoff}), and a vector that is not inlined is allocated: one loop with both
+ * stages, or with more than one vector, ran at a tenth of the speed. Shuffles ({@code rearrange},
+ * {@code selectFrom}) were slower than the arithmetic selection; lane masks are avoided for the same
+ * reason. The kernel takes the common case: two players whose limits all fit in 32 bits, no burn-in,
+ * no snapshot or time-resolved rounds; {@link Simulator} uses {@link LockstepKernel} otherwise.
+ */
+final class SimdLockstepKernel extends Worker {
+    /** The vector width the kernel is written for. */
+    static final int VECTOR_BITS = 512;
+    private static final VectorSpecies<Long> SPECIES = LongVector.SPECIES_512;
+    private static final int WIDTH = 8;
+    private static final int LANES = LaneCounters.MAX_LANES;
+    /** Rounds of one stretch, at most: one fill of the 4-bit counters. */
+    private static final int STRETCH = 15;
+    private static final long LOW32 = 0xFFFFFFFFL;
+
+    private final Plan plan;
+    private final long packed0;
+    private final long packed1;
+    private final long packed2;
+    private final long packed3;
+    private final long firstX;
+    private final long firstY;
+    private final long[] word0 = new long[LANES];
+    private final long[] word1 = new long[LANES];
+    private final long[] lastX = new long[LANES];
+    private final long[] lastY = new long[LANES];
+    /** The draws of one vector's stretch, round i at 8 i. */
+    private final long[] draws = new long[STRETCH * WIDTH];
+    private final ReplicateStream seeder = new ReplicateStream();
+    private final LaneCounters counters;
+
+    private SimdLockstepKernel(Plan plan, Accumulator acc, FusedTables tables) {
+        super(acc);
+        this.plan = plan;
+        long[] lx = tables.limitX();
+        long[] ly = tables.limitY();
+        long[] w = new long[4];
+        for (int k = 0; k < 4; k++) {
+            w[k] = (lx[k] << 32) + ly[k];
+        }
+        packed0 = w[0];
+        packed1 = w[1] - w[0];
+        packed2 = w[2] - w[0];
+        packed3 = w[3] - w[2] - w[1] + w[0];
+        firstX = tables.firstLimitX();
+        firstY = tables.firstLimitY();
+        counters = new LaneCounters(LANES, LaneCounters.BLOCK_STATISTICS_LENGTH);
+    }
+
+    /** The bits of the preferred vector species of this VM (loads the vector API). */
+    static int preferredVectorBits() {
+        return LongVector.SPECIES_PREFERRED.vectorBitSize();
+    }
+
+    /**
+     * Whether this kernel plays the plan: a fixed horizon with every round tallied and nothing counted
+     * per round, and limits that fit in 32 unsigned bits.
+     */
+    static boolean supports(Plan plan, FusedTables tables) {
+        if (!(plan.fixedRounds() > 0 && plan.burnIn() == 0 && plan.snapshotRounds().length == 0
+            && plan.timeRounds() == 0)) {
+            return false;
+        }
+        for (int k = 0; k < 4; k++) {
+            if (tables.limitX()[k] < 0 || tables.limitY()[k] < 0) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * The kernel for a plan it {@link #supports}; call only when {@link VectorModule#available()}.
+     * Declared to return a {@link Worker} so that callers' bytecode never names this class's vector types.
+     */
+    static Worker create(Plan plan, Accumulator acc, FusedTables tables) {
+        if (!supports(plan, tables)) {
+            throw new IllegalArgumentException("the vector kernel does not play this plan");
+        }
+        return new SimdLockstepKernel(plan, acc, tables);
+    }
+
+    @Override
+    long run(long from, long to) {
+        long rounds = 0;
+        for (long start = from; start < to; start += LANES) {
+            int lanes = (int) Math.min(LANES, to - start);
+            playBlock(start, lanes);
+            rounds = Math.addExact(rounds, Math.multiplyExact(lanes, plan.fixedRounds()));
+        }
+        return rounds;
+    }
+
+    private void playBlock(long start, int lanes) {
+        long seedBase = ReplicateStream.mix64(plan.seed());
+        final long fx = firstX;
+        final long fy = firstY;
+        counters.begin(lanes);
+        for (int j = 0; j < lanes; j++) {
+            seeder.seedFromBase(seedBase, start + j);
+            long p = seeder.state0;
+            long q = seeder.state1;
+            long r = Long.rotateLeft(p + q, 17) + p;
+            q ^= p;
+            word0[j] = Long.rotateLeft(p, 49) ^ q ^ (q << 21);
+            word1[j] = Long.rotateLeft(q, 28);
+            long mx = (fx - (r >>> 32)) >> 63;
+            long my = (fy - (r & LOW32)) >> 63;
+            lastX[j] = mx;
+            lastY[j] = my;
+            counters.first(j, (int) ((mx & 2) | (my & 1)));
+        }
+        // lanes past the block's games (up to the next multiple of 8) are played and never read
+        int vectors = (lanes + WIDTH - 1) / WIDTH;
+        long left = plan.fixedRounds() - 1;
+        long[] nibbles = counters.nibbles;
+        while (left > 0) {
+            int m = (int) Math.min(left, counters.roundsBeforeSpill());
+            for (int v = 0; v < vectors; v++) {
+                int o = WIDTH * v;
+                draw(m, o);
+                decideAndCount(m, o, nibbles);
+            }
+            counters.counted(lanes, m);
+            left -= m;
+        }
+        counters.finish(lanes, plan.fixedRounds(), 0, acc);
+    }
+
+    /** Steps the generators of lanes [o, o + 8) m times, the draws to {@link #draws}. */
+    private void draw(int m, int o) {
+        final long[] out = draws;
+        LongVector a = LongVector.fromArray(SPECIES, word0, o);
+        LongVector b = LongVector.fromArray(SPECIES, word1, o);
+        for (int i = 0; i < m; i++) {
+            a.add(b).lanewise(VectorOperators.ROL, 17).add(a).intoArray(out, WIDTH * i);
+            b = b.lanewise(VectorOperators.XOR, a);
+            a = a.lanewise(VectorOperators.ROL, 49).lanewise(VectorOperators.XOR, b)
+                .lanewise(VectorOperators.XOR, b.lanewise(VectorOperators.LSHL, 21));
+            b = b.lanewise(VectorOperators.ROL, 28);
+        }
+        a.intoArray(word0, o);
+        b.intoArray(word1, o);
+    }
+
+    /** Decides and counts m rounds of lanes [o, o + 8) from {@link #draws}. */
+    private void decideAndCount(int m, int o, long[] nibbles) {
+        final long[] in = draws;
+        LongVector c0 = LongVector.broadcast(SPECIES, packed0);
+        LongVector c1 = LongVector.broadcast(SPECIES, packed1);
+        LongVector c2 = LongVector.broadcast(SPECIES, packed2);
+        LongVector c3 = LongVector.broadcast(SPECIES, packed3);
+        LongVector one = LongVector.broadcast(SPECIES, 1);
+        LongVector low = LongVector.broadcast(SPECIES, LOW32);
+        LongVector mx = LongVector.fromArray(SPECIES, lastX, o);
+        LongVector my = LongVector.fromArray(SPECIES, lastY, o);
+        LongVector count = LongVector.fromArray(SPECIES, nibbles, o);
+        LongVector previous = mx.and(32).or(my.and(16));
+        for (int i = 0; i < m; i++) {
+            LongVector r = LongVector.fromArray(SPECIES, in, WIDTH * i);
+            LongVector w = c0.add(my.and(c1)).add(mx.and(c2.add(my.and(c3))));
+            LongVector nx = w.lanewise(VectorOperators.LSHR, 32).sub(r.lanewise(VectorOperators.LSHR, 32))
+                .lanewise(VectorOperators.ASHR, 63);
+            LongVector ny = w.and(low).sub(r.and(low)).lanewise(VectorOperators.ASHR, 63);
+            LongVector next = nx.and(8).or(ny.and(4));
+            count = count.add(one.lanewise(VectorOperators.LSHL, previous.or(next)));
+            previous = next.lanewise(VectorOperators.LSHL, 2);
+            mx = nx;
+            my = ny;
+        }
+        mx.intoArray(lastX, o);
+        my.intoArray(lastY, o);
+        count.intoArray(nibbles, o);
+    }
+}
