@@ -33,6 +33,10 @@ final class SimdLockstepKernel extends Worker {
     /** Rounds of one stretch, at most: one fill of the 4-bit counters. */
     private static final int STRETCH = 15;
     private static final long LOW32 = 0xFFFFFFFFL;
+    private static final long LOW_NIBBLES = 0x0F0F0F0F0F0F0F0FL;
+    /** Lanes of the random-length kernel. */
+    private static final int REFILL_LANES = 64;
+    private static final long IDLE = Long.MAX_VALUE;
 
     private final Plan plan;
     private final long packed0;
@@ -50,6 +54,24 @@ final class SimdLockstepKernel extends Worker {
     private final ReplicateStream seeder = new ReplicateStream();
     private final LaneCounters counters;
 
+    /** Random lengths: rounds left in each lane's game, {@link #IDLE} when the lane has none. */
+    private final long[] left = new long[REFILL_LANES];
+    private final long[] length = new long[REFILL_LANES];
+    private final int[] firstState = new int[REFILL_LANES];
+    private final long[] evenBytes = new long[REFILL_LANES];
+    private final long[] oddBytes = new long[REFILL_LANES];
+    /** Index 16 j + 4 s + s': lane j's transitions spilled from its 8-bit counters. */
+    private final long[] laneSteps = new long[16 * REFILL_LANES];
+    private final int[] nibbleLoad = new int[REFILL_LANES / WIDTH];
+    private final int[] byteLoad = new int[REFILL_LANES / WIDTH];
+    /** Transitions of finished games, added to the accumulator at the end of a call. */
+    private final long[] transitions = new long[16];
+    private final long[] gameSteps = new long[16];
+    private final GameSums sums;
+    private long nextGame;
+    private long endGame;
+    private long roundsStarted;
+
     private SimdLockstepKernel(Plan plan, Accumulator acc, FusedTables tables) {
         super(acc);
         this.plan = plan;
@@ -66,6 +88,7 @@ final class SimdLockstepKernel extends Worker {
         firstX = tables.firstLimitX();
         firstY = tables.firstLimitY();
         counters = new LaneCounters(LANES, LaneCounters.BLOCK_STATISTICS_LENGTH);
+        sums = new GameSums(acc);
     }
 
     /** The bits of the preferred vector species of this VM (loads the vector API). */
@@ -74,12 +97,11 @@ final class SimdLockstepKernel extends Worker {
     }
 
     /**
-     * Whether this kernel plays the plan: a fixed horizon with every round tallied and nothing counted
-     * per round, and limits that fit in 32 unsigned bits.
+     * Whether this kernel plays the plan: every round tallied and nothing counted per round (a fixed
+     * horizon or random lengths), and limits that fit in 32 unsigned bits.
      */
     static boolean supports(Plan plan, FusedTables tables) {
-        if (!(plan.fixedRounds() > 0 && plan.burnIn() == 0 && plan.snapshotRounds().length == 0
-            && plan.timeRounds() == 0)) {
+        if (!(plan.burnIn() == 0 && plan.snapshotRounds().length == 0 && plan.timeRounds() == 0)) {
             return false;
         }
         for (int k = 0; k < 4; k++) {
@@ -103,6 +125,9 @@ final class SimdLockstepKernel extends Worker {
 
     @Override
     long run(long from, long to) {
+        if (plan.fixedRounds() == 0) {
+            return runRefilled(from, to);
+        }
         long rounds = 0;
         for (long start = from; start < to; start += LANES) {
             int lanes = (int) Math.min(LANES, to - start);
@@ -146,6 +171,162 @@ final class SimdLockstepKernel extends Worker {
             left -= m;
         }
         counters.finish(lanes, plan.fixedRounds(), 0, acc);
+    }
+
+    /**
+     * Random lengths: each lane plays games of [from, to) one after another, taking the next game when
+     * its game ends. A vector's stretch ends at the first game end in its 8 lanes (or when its 4-bit
+     * counters are full); the finished lanes' counts are read out as that game's tallies and the lane
+     * starts afresh, so every game is played exactly as by itself. When no game is left, a lane idles
+     * (played, never read) until its vector's other games end.
+     */
+    private long runRefilled(long from, long to) {
+        nextGame = from;
+        endGame = to;
+        roundsStarted = 0;
+        java.util.Arrays.fill(nibbleLoad, 0);
+        java.util.Arrays.fill(byteLoad, 0);
+        long[] nibbles = counters.nibbles;
+        for (int j = 0; j < REFILL_LANES; j++) {
+            clearLane(j, nibbles);
+            start(j);
+        }
+        for (int v = 0; v < REFILL_LANES / WIDTH; v++) {
+            playVector(v, nibbles);
+        }
+        sums.flush();
+        long[] steps = acc.steps;
+        for (int k = 0; k < 16; k++) {
+            steps[k] = Math.addExact(steps[k], transitions[k]);
+            transitions[k] = 0;
+        }
+        return roundsStarted;
+    }
+
+    private void playVector(int v, long[] nibbles) {
+        int o = WIDTH * v;
+        while (true) {
+            long m = STRETCH - nibbleLoad[v];
+            boolean active = false;
+            for (int j = o; j < o + WIDTH; j++) {
+                if (left[j] != IDLE) {
+                    active = true;
+                    m = Math.min(m, left[j]);
+                }
+            }
+            if (!active) {
+                return;
+            }
+            int rounds = (int) m;
+            draw(rounds, o);
+            decideAndCount(rounds, o, nibbles);
+            nibbleLoad[v] += rounds;
+            if (nibbleLoad[v] == STRETCH) {
+                spill(v, nibbles);
+            }
+            for (int j = o; j < o + WIDTH; j++) {
+                if (left[j] != IDLE) {
+                    left[j] -= rounds;
+                    if (left[j] == 0) {
+                        finish(j, nibbles);
+                        clearLane(j, nibbles);
+                        start(j);
+                    }
+                }
+            }
+        }
+    }
+
+    /** Moves the 4-bit counters of vector v's lanes to their 8-bit counters (and those to longs when due). */
+    private void spill(int v, long[] nibbles) {
+        int o = WIDTH * v;
+        if (byteLoad[v] + STRETCH > 255) {
+            for (int j = o; j < o + WIDTH; j++) {
+                long even = evenBytes[j];
+                long odd = oddBytes[j];
+                int base = 16 * j;
+                for (int f = 0; f < 8; f++) {
+                    laneSteps[base + 2 * f] += (even >>> (8 * f)) & 0xFF;
+                    laneSteps[base + 2 * f + 1] += (odd >>> (8 * f)) & 0xFF;
+                }
+                evenBytes[j] = 0;
+                oddBytes[j] = 0;
+            }
+            byteLoad[v] = 0;
+        }
+        for (int j = o; j < o + WIDTH; j++) {
+            long c = nibbles[j];
+            evenBytes[j] += c & LOW_NIBBLES;
+            oddBytes[j] += (c >>> 4) & LOW_NIBBLES;
+            nibbles[j] = 0;
+        }
+        byteLoad[v] += nibbleLoad[v];
+        nibbleLoad[v] = 0;
+    }
+
+    private void clearLane(int j, long[] nibbles) {
+        nibbles[j] = 0;
+        evenBytes[j] = 0;
+        oddBytes[j] = 0;
+        java.util.Arrays.fill(laneSteps, 16 * j, 16 * j + 16, 0);
+    }
+
+    /** Starts the next game in lane j (games of one round are played here), or idles the lane. */
+    private void start(int j) {
+        long seedBase = ReplicateStream.mix64(plan.seed());
+        double delta = plan.continuation();
+        while (nextGame < endGame) {
+            seeder.seedFromBase(seedBase, nextGame++);
+            long n = seeder.geometricLength(delta);
+            roundsStarted = Math.addExact(roundsStarted, n);
+            long r = seeder.nextLong();
+            long mx = (firstX - (r >>> 32)) >> 63;
+            long my = (firstY - (r & LOW32)) >> 63;
+            int s = (int) ((mx & 2) | (my & 1));
+            if (n == 1) {
+                sums.add(1, s == 0 ? 1 : 0, s == 1 ? 1 : 0, s == 2 ? 1 : 0, s == 3 ? 1 : 0);
+                continue;
+            }
+            word0[j] = seeder.state0;
+            word1[j] = seeder.state1;
+            lastX[j] = mx;
+            lastY[j] = my;
+            firstState[j] = s;
+            length[j] = n;
+            left[j] = n - 1;
+            return;
+        }
+        left[j] = IDLE;
+    }
+
+    /** Adds the finished game of lane j to the tallies. */
+    private void finish(int j, long[] nibbles) {
+        long[] t = gameSteps;
+        long c = nibbles[j];
+        long even = evenBytes[j];
+        long odd = oddBytes[j];
+        int base = 16 * j;
+        for (int f = 0; f < 8; f++) {
+            t[2 * f] = ((c >>> (8 * f)) & 0xF) + ((even >>> (8 * f)) & 0xFF) + laneSteps[base + 2 * f];
+            t[2 * f + 1] = ((c >>> (8 * f + 4)) & 0xF) + ((odd >>> (8 * f)) & 0xFF) + laneSteps[base + 2 * f + 1];
+        }
+        long[] tr = transitions;
+        long n0 = 0;
+        long n1 = 0;
+        long n2 = 0;
+        long n3 = 0;
+        for (int k = 0; k < 16; k += 4) {
+            n0 += t[k];
+            n1 += t[k + 1];
+            n2 += t[k + 2];
+            n3 += t[k + 3];
+        }
+        for (int k = 0; k < 16; k++) {
+            tr[k] += t[k];
+        }
+        int s = firstState[j];
+        sums.add(length[j], n0 + (s == 0 ? 1 : 0), n1 + (s == 1 ? 1 : 0), n2 + (s == 2 ? 1 : 0),
+            n3 + (s == 3 ? 1 : 0));
     }
 
     /** Steps the generators of lanes [o, o + 8) m times, the draws to {@link #draws}. */

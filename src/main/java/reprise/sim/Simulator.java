@@ -251,10 +251,10 @@ public final class Simulator {
         Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
         if (fast) {
             FusedTables t = fusedTables();
+            if (chunk >= LOCKSTEP_MIN_GAMES && VectorModule.available() && SimdLockstepKernel.supports(plan, t)) {
+                return SimdLockstepKernel.create(plan, acc, t);
+            }
             if (plan.fixedRounds() > 0 && chunk >= LOCKSTEP_MIN_GAMES) {
-                if (VectorModule.available() && SimdLockstepKernel.supports(plan, t)) {
-                    return SimdLockstepKernel.create(plan, acc, t);
-                }
                 return new LockstepKernel(plan, acc, t);
             }
             return new FusedMemoryOneKernel(plan, acc, t);
@@ -266,8 +266,9 @@ public final class Simulator {
     }
 
     /**
-     * The engine a run of all replicates uses, for reports: {@code "lockstep-simd"} (lockstep blocks in
-     * the vector API's 512-bit vectors), {@code "lockstep"} (lockstep blocks the JIT vectorises),
+     * The engine a run of all replicates uses, for reports: {@code "lockstep-simd"} (games in lockstep in
+     * the vector API's 512-bit vectors, with random lengths a lane taking the next game when its game
+     * ends), {@code "lockstep"} (lockstep blocks the JIT vectorises),
      * {@code "per-game"} (the fused path one game at a time), {@code "literal"} or {@code "agent"}. The
      * choice never changes a result.
      *
@@ -275,11 +276,11 @@ public final class Simulator {
      */
     public String kernel() {
         if (fast) {
-            if (!playsInLockstep()) {
-                return "per-game";
+            if (chunkSize() >= LOCKSTEP_MIN_GAMES && VectorModule.available()
+                && SimdLockstepKernel.supports(plan, fusedTables())) {
+                return "lockstep-simd";
             }
-            return VectorModule.available() && SimdLockstepKernel.supports(plan, fusedTables()) ? "lockstep-simd"
-                : "lockstep";
+            return playsInLockstep() ? "lockstep" : "per-game";
         }
         return tables ? "literal" : "agent";
     }
@@ -310,8 +311,7 @@ public final class Simulator {
 
     /** Whether the vector API lockstep kernel can play this spec in this VM (a testing hook). */
     boolean simdApplies() {
-        return fast && plan.fixedRounds() > 0 && VectorModule.available()
-            && SimdLockstepKernel.supports(plan, fusedTables());
+        return fast && VectorModule.available() && SimdLockstepKernel.supports(plan, fusedTables());
     }
 
     /** Testing hook: the per-game fused kernel on one thread, whatever the horizon and chunking. */
