@@ -1,5 +1,6 @@
 package reprise.sim;
 
+import jdk.incubator.vector.IntVector;
 import jdk.incubator.vector.LongVector;
 import jdk.incubator.vector.VectorOperators;
 import jdk.incubator.vector.VectorSpecies;
@@ -39,18 +40,21 @@ final class SimdLockstepKernel extends Worker {
     private static final long IDLE = Long.MAX_VALUE;
 
     private final Plan plan;
-    private final long packed0;
-    private final long packed1;
-    private final long packed2;
-    private final long packed3;
+    /** Packed limits X 2^32 + Y of the states CC, CD, DC, DD. */
+    private final long limits0;
+    private final long limits1;
+    private final long limits2;
+    private final long limits3;
     private final long firstX;
     private final long firstY;
     private final long[] word0 = new long[LANES];
     private final long[] word1 = new long[LANES];
     private final long[] lastX = new long[LANES];
     private final long[] lastY = new long[LANES];
-    /** The draws of one vector's stretch, round i at 8 i. */
-    private final long[] draws = new long[STRETCH * WIDTH];
+    /** Random lengths: the draws of one vector's stretch, round i at [i]. */
+    private final long[][] draws = new long[STRETCH][WIDTH];
+    /** Fixed horizon: the draws of a stretch of the whole block, round i of lane j at [i][j]. */
+    private final long[][] blockDraws = new long[STRETCH][LANES];
     private final ReplicateStream seeder = new ReplicateStream();
     private final LaneCounters counters;
 
@@ -81,10 +85,10 @@ final class SimdLockstepKernel extends Worker {
         for (int k = 0; k < 4; k++) {
             w[k] = (lx[k] << 32) + ly[k];
         }
-        packed0 = w[0];
-        packed1 = w[1] - w[0];
-        packed2 = w[2] - w[0];
-        packed3 = w[3] - w[2] - w[1] + w[0];
+        limits0 = w[0];
+        limits1 = w[1];
+        limits2 = w[2];
+        limits3 = w[3];
         firstX = tables.firstLimitX();
         firstY = tables.firstLimitY();
         counters = new LaneCounters(LANES, LaneCounters.BLOCK_STATISTICS_LENGTH);
@@ -120,7 +124,45 @@ final class SimdLockstepKernel extends Worker {
         if (!supports(plan, tables)) {
             throw new IllegalArgumentException("the vector kernel does not play this plan");
         }
+        warmUp();
         return new SimdLockstepKernel(plan, acc, tables);
+    }
+
+    /**
+     * Once per VM: calls the stretch methods on a scratch kernel until the JIT compiles them with the
+     * vector intrinsics. Until then they run interpreted or in C1's code, where every vector is an object
+     * and a round costs some fifty times more. C2 (JDK 17, tiered) compiles a method once its invocations
+     * and loop iterations pass 15,000 (at least 600 invocations); 2,000 calls of 15 rounds pass both with a margin. The
+     * warm-up runs in a holder's class initialiser, so a second worker waits for it instead of playing
+     * its first chunk in the slow code.
+     */
+    private static void warmUp() {
+        WarmUp.done();
+    }
+
+    private static final class WarmUp {
+        private static final int CALLS = 2_000;
+
+        static {
+            long half = 1L << 31;
+            FusedTables tables = new FusedTables(new long[] {half, half, half, half},
+                new long[] {half, half, half, half}, half, half);
+            SimdLockstepKernel k = new SimdLockstepKernel(new Plan(0, 1, 0, 0, new long[0], 0),
+                new Accumulator(1, new long[0], 0), tables);
+            long[] scratch = new long[LANES];
+            for (int i = 0; i < CALLS; i++) {
+                k.drawBlock(STRETCH, WIDTH);
+                k.draw(STRETCH, 0);
+                k.decideAndCount(STRETCH, 0, scratch, k.draws, 0);
+            }
+        }
+
+        private WarmUp() {
+        }
+
+        /** Returns once the warm-up has run (the first call initialises the class and runs it). */
+        static void done() {
+        }
     }
 
     @Override
@@ -160,12 +202,12 @@ final class SimdLockstepKernel extends Worker {
         int vectors = (lanes + WIDTH - 1) / WIDTH;
         long left = plan.fixedRounds() - 1;
         long[] nibbles = counters.nibbles;
+        int width = WIDTH * vectors;
         while (left > 0) {
             int m = (int) Math.min(left, counters.roundsBeforeSpill());
+            drawBlock(m, width);
             for (int v = 0; v < vectors; v++) {
-                int o = WIDTH * v;
-                draw(m, o);
-                decideAndCount(m, o, nibbles);
+                decideAndCount(m, WIDTH * v, nibbles, blockDraws, WIDTH * v);
             }
             counters.counted(lanes, m);
             left -= m;
@@ -219,7 +261,7 @@ final class SimdLockstepKernel extends Worker {
             }
             int rounds = (int) m;
             draw(rounds, o);
-            decideAndCount(rounds, o, nibbles);
+            decideAndCount(rounds, o, nibbles, draws, 0);
             nibbleLoad[v] += rounds;
             if (nibbleLoad[v] == STRETCH) {
                 spill(v, nibbles);
@@ -329,13 +371,57 @@ final class SimdLockstepKernel extends Worker {
             n3 + (s == 3 ? 1 : 0));
     }
 
+    /**
+     * Steps the generators of lanes [0, width) m times, round i's draws to {@code blockDraws[i][j]}:
+     * plain loops over the lanes, two steps per pass, which C2 compiles to 512-bit code with single-instruction
+     * rotations (the vector API's rotation is three instructions in JDK 17). C2 left these loops scalar when
+     * it inlined the method into {@link #playBlock}; with the argument check the method's bytecode exceeds
+     * 325 bytes, the most C2 inlines ({@code FreqInlineSize}), so it is always compiled on its own.
+     */
+    private void drawBlock(int m, int width) {
+        if (!(m >= 1 && m <= STRETCH && width >= 1 && width <= LANES && width <= word0.length)) {
+            throw new IllegalArgumentException("a stretch must have 1 to " + STRETCH + " rounds and 1 to " + LANES
+                + " lanes: " + m + " rounds, " + width + " lanes");
+        }
+        final long[] a = word0;
+        final long[] b = word1;
+        int i = 0;
+        for (; i + 1 < m; i += 2) {
+            final long[] d0 = blockDraws[i];
+            final long[] d1 = blockDraws[i + 1];
+            for (int j = 0; j < width; j++) {
+                long p = a[j];
+                long q = b[j];
+                d0[j] = Long.rotateLeft(p + q, 17) + p;
+                q ^= p;
+                p = Long.rotateLeft(p, 49) ^ q ^ (q << 21);
+                q = Long.rotateLeft(q, 28);
+                d1[j] = Long.rotateLeft(p + q, 17) + p;
+                q ^= p;
+                a[j] = Long.rotateLeft(p, 49) ^ q ^ (q << 21);
+                b[j] = Long.rotateLeft(q, 28);
+            }
+        }
+        if (i < m) {
+            final long[] d0 = blockDraws[i];
+            for (int j = 0; j < width; j++) {
+                long p = a[j];
+                long q = b[j];
+                d0[j] = Long.rotateLeft(p + q, 17) + p;
+                q ^= p;
+                a[j] = Long.rotateLeft(p, 49) ^ q ^ (q << 21);
+                b[j] = Long.rotateLeft(q, 28);
+            }
+        }
+    }
+
     /** Steps the generators of lanes [o, o + 8) m times, the draws to {@link #draws}. */
     private void draw(int m, int o) {
-        final long[] out = draws;
+        final long[][] out = draws;
         LongVector a = LongVector.fromArray(SPECIES, word0, o);
         LongVector b = LongVector.fromArray(SPECIES, word1, o);
         for (int i = 0; i < m; i++) {
-            a.add(b).lanewise(VectorOperators.ROL, 17).add(a).intoArray(out, WIDTH * i);
+            a.add(b).lanewise(VectorOperators.ROL, 17).add(a).intoArray(out[i], 0);
             b = b.lanewise(VectorOperators.XOR, a);
             a = a.lanewise(VectorOperators.ROL, 49).lanewise(VectorOperators.XOR, b)
                 .lanewise(VectorOperators.XOR, b.lanewise(VectorOperators.LSHL, 21));
@@ -345,25 +431,36 @@ final class SimdLockstepKernel extends Worker {
         b.intoArray(word1, o);
     }
 
-    /** Decides and counts m rounds of lanes [o, o + 8) from {@link #draws}. */
-    private void decideAndCount(int m, int o, long[] nibbles) {
-        final long[] in = draws;
-        LongVector c0 = LongVector.broadcast(SPECIES, packed0);
-        LongVector c1 = LongVector.broadcast(SPECIES, packed1);
-        LongVector c2 = LongVector.broadcast(SPECIES, packed2);
-        LongVector c3 = LongVector.broadcast(SPECIES, packed3);
+    /**
+     * Decides and counts m rounds of lanes [o, o + 8), round i's draws at {@code in[i][base]}.
+     * The packed limits of the last state are selected by bitwise choices, w0 ^ ((w0 ^ w1) &amp; my) and the
+     * like, which the JIT fuses into one ternary-logic instruction each; the two decisions come from the
+     * borrow of the 32-bit differences w - u (u &gt; w unsigned iff the subtraction borrows; the borrow is
+     * bit 31 of t ^ ((t ^ u) &amp; (w ^ u)), t = w - u), spread over each half by an arithmetic shift.
+     */
+    private void decideAndCount(int m, int o, long[] nibbles, long[][] in, int base) {
+        LongVector w0 = LongVector.broadcast(SPECIES, limits0);
+        LongVector x01 = LongVector.broadcast(SPECIES, limits0 ^ limits1);
+        LongVector w2 = LongVector.broadcast(SPECIES, limits2);
+        LongVector x23 = LongVector.broadcast(SPECIES, limits2 ^ limits3);
         LongVector one = LongVector.broadcast(SPECIES, 1);
-        LongVector low = LongVector.broadcast(SPECIES, LOW32);
         LongVector mx = LongVector.fromArray(SPECIES, lastX, o);
         LongVector my = LongVector.fromArray(SPECIES, lastY, o);
         LongVector count = LongVector.fromArray(SPECIES, nibbles, o);
         LongVector previous = mx.and(32).or(my.and(16));
         for (int i = 0; i < m; i++) {
-            LongVector r = LongVector.fromArray(SPECIES, in, WIDTH * i);
-            LongVector w = c0.add(my.and(c1)).add(mx.and(c2.add(my.and(c3))));
-            LongVector nx = w.lanewise(VectorOperators.LSHR, 32).sub(r.lanewise(VectorOperators.LSHR, 32))
-                .lanewise(VectorOperators.ASHR, 63);
-            LongVector ny = w.and(low).sub(r.and(low)).lanewise(VectorOperators.ASHR, 63);
+            LongVector r = LongVector.fromArray(SPECIES, in[i], base);
+            LongVector lower = w0.lanewise(VectorOperators.XOR, x01.and(my));
+            LongVector upper = w2.lanewise(VectorOperators.XOR, x23.and(my));
+            LongVector w = lower.lanewise(VectorOperators.XOR, lower.lanewise(VectorOperators.XOR, upper).and(mx));
+            IntVector wi = w.reinterpretAsInts();
+            IntVector ui = r.reinterpretAsInts();
+            IntVector t = wi.sub(ui);
+            IntVector borrow = t.lanewise(VectorOperators.XOR, t.lanewise(VectorOperators.XOR, ui)
+                .and(wi.lanewise(VectorOperators.XOR, ui)));
+            LongVector d = borrow.lanewise(VectorOperators.ASHR, 31).reinterpretAsLongs();
+            LongVector nx = d.lanewise(VectorOperators.ASHR, 63);
+            LongVector ny = d.lanewise(VectorOperators.LSHL, 32).lanewise(VectorOperators.ASHR, 63);
             LongVector next = nx.and(8).or(ny.and(4));
             count = count.add(one.lanewise(VectorOperators.LSHL, previous.or(next)));
             previous = next.lanewise(VectorOperators.LSHL, 2);

@@ -45,6 +45,13 @@ public final class Simulator {
     /** The generator of every replicate stream, as a Commons RNG {@code RandomSource} name. */
     public static final String GENERATOR = "XO_RO_SHI_RO_128_PP";
 
+    /**
+     * Fewest expected rounds of a run (a call of {@link #simulateRange}) for which the fused path uses the
+     * vector API kernel: loading the module, warming the kernel up and compiling it cost about a second of
+     * CPU time once per VM, which a run of 2^30 rounds (about a second of play) recovers.
+     */
+    static final double SIMD_MIN_ROUNDS = 0x1p30;
+
     /** Fewest games per chunk for which the fused path plays games in lockstep blocks. */
     static final long LOCKSTEP_MIN_GAMES = 32;
 
@@ -58,6 +65,7 @@ public final class Simulator {
     private final Plan plan;
     private final String configuration;
     private final long chunkReplicates;
+    private final double simdMinRounds;
 
     /**
      * Prepares a run: checks the agents and the memory the tallies need.
@@ -73,8 +81,14 @@ public final class Simulator {
 
     /** With a fixed chunk size in replicates (0: derived from the spec); for tests of the chunking. */
     Simulator(SimulationSpec spec, long chunkReplicates) {
+        this(spec, chunkReplicates, SIMD_MIN_ROUNDS);
+    }
+
+    /** With a fixed chunk size and another least run size for the vector kernel (testing hooks). */
+    Simulator(SimulationSpec spec, long chunkReplicates, double simdMinRounds) {
         this.spec = spec;
         this.chunkReplicates = chunkReplicates;
+        this.simdMinRounds = simdMinRounds;
         Match m = spec.match();
         Agents.create(m.x());
         Agents.create(m.y());
@@ -175,7 +189,7 @@ public final class Simulator {
         AtomicLong nextChunk = new AtomicLong();
         List<Worker> kernels = new ArrayList<>();
         if (workers == 1) {
-            kernels.add(worker(chunk));
+            kernels.add(worker(chunk, expected >= simdMinRounds));
             work(kernels.get(0), nextChunk, chunks, chunk, from, to, progress);
         } else {
             ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
@@ -183,13 +197,14 @@ public final class Simulator {
                 t.setDaemon(true);
                 return t;
             });
+            boolean simd = expected >= simdMinRounds;
             try {
                 // each worker allocates its own kernel, so that the hot arrays of two workers lie in
                 // different threads' allocation buffers, never on a shared cache line
                 List<Future<Worker>> futures = new ArrayList<>();
                 for (int w = 0; w < workers; w++) {
                     futures.add(pool.submit(() -> {
-                        Worker k = worker(chunk);
+                        Worker k = worker(chunk, simd);
                         work(k, nextChunk, chunks, chunk, from, to, progress);
                         return k;
                     }));
@@ -246,12 +261,13 @@ public final class Simulator {
      * changes speed only), in the vector API's registers ({@link SimdLockstepKernel}) where the VM has the
      * module and the plan is the plain one that kernel takes.
      */
-    private Worker worker(long chunk) {
+    private Worker worker(long chunk, boolean simd) {
         Match m = spec.match();
         Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
         if (fast) {
             FusedTables t = fusedTables();
-            if (chunk >= LOCKSTEP_MIN_GAMES && VectorModule.available() && SimdLockstepKernel.supports(plan, t)) {
+            if (simd && chunk >= LOCKSTEP_MIN_GAMES && VectorModule.available()
+                && SimdLockstepKernel.supports(plan, t)) {
                 return SimdLockstepKernel.create(plan, acc, t);
             }
             if (plan.fixedRounds() > 0 && chunk >= LOCKSTEP_MIN_GAMES) {
@@ -268,7 +284,8 @@ public final class Simulator {
     /**
      * The engine a run of all replicates uses, for reports: {@code "lockstep-simd"} (games in lockstep in
      * the vector API's 512-bit vectors, with random lengths a lane taking the next game when its game
-     * ends), {@code "lockstep"} (lockstep blocks the JIT vectorises),
+     * ends; for runs of at least {@link #SIMD_MIN_ROUNDS} expected rounds where the VM has the vector API),
+     * {@code "lockstep"} (lockstep blocks the JIT vectorises),
      * {@code "per-game"} (the fused path one game at a time), {@code "literal"} or {@code "agent"}. The
      * choice never changes a result.
      *
@@ -276,7 +293,8 @@ public final class Simulator {
      */
     public String kernel() {
         if (fast) {
-            if (chunkSize() >= LOCKSTEP_MIN_GAMES && VectorModule.available()
+            if (spec.replicates() * spec.horizon().expectedLength() >= simdMinRounds
+                && chunkSize() >= LOCKSTEP_MIN_GAMES && VectorModule.available()
                 && SimdLockstepKernel.supports(plan, fusedTables())) {
                 return "lockstep-simd";
             }

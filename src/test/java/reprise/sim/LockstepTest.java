@@ -92,11 +92,11 @@ class LockstepTest {
         // the vector API kernel takes only plans without burn-in, snapshots and time-resolved rounds
         SimulationSpec plain = SimulationSpec.of(DeterminismTest.match(x, y, noise), Horizon.rounds(n), replicates,
             700 + c);
-        Simulator simd = new Simulator(plain, 97);
+        Simulator simd = new Simulator(plain, 97, 0);
         if (simd.simdApplies()) {
             SimulationResult expected = new Simulator(plain).simulatePerGame(0, replicates);
             assertEquals(expected, simd.simulateSimd(0, replicates), "vector API kernel");
-            assertEquals(expected, new Simulator(plain.withThreads(2), 97).run(), "2 threads, chunks of 97 games");
+            assertEquals(expected, new Simulator(plain.withThreads(2), 97, 0).run(), "2 threads, chunks of 97 games");
             assertEquals("lockstep-simd", simd.kernel());
         }
     }
@@ -127,12 +127,12 @@ class LockstepTest {
     void randomLengthsInLockstepEqualPerGame(int c, String x, String y, Noise noise, double delta, int replicates) {
         SimulationSpec spec = SimulationSpec.of(DeterminismTest.match(x, y, noise), Horizon.continuation(delta),
             replicates, 900 + c);
-        Simulator simd = new Simulator(spec.withThreads(2), 97);
+        Simulator simd = new Simulator(spec.withThreads(2), 97, 0);
         org.junit.jupiter.api.Assumptions.assumeTrue(simd.simdApplies(), "vector kernel not available");
         SimulationResult perGame = new Simulator(spec).simulatePerGame(0, replicates);
         assertEquals(perGame, simd.simulateSimd(0, replicates), "one call over all games");
         assertEquals(perGame, simd.run(), "2 threads, chunks of 97 games");
-        assertEquals("lockstep-simd", new Simulator(spec).kernel());
+        assertEquals("lockstep-simd", new Simulator(spec, 0, 0).kernel());
     }
 
     /**
@@ -145,9 +145,13 @@ class LockstepTest {
             "vector kernel turned off");
         assertEquals("available", Simulator.vectorStatus());
         SimulationSpec spec = SimulationSpec.of(DeterminismTest.match("wsls", "tft", Noise.symmetric(0.01, 0)),
-            Horizon.rounds(200), 1000, 1);
-        assertEquals("lockstep-simd", new Simulator(spec).kernel());
+            Horizon.rounds(200), 10_000_000, 1);
+        assertEquals("lockstep-simd", new Simulator(spec).kernel(), "2e9 rounds");
+        assertEquals("lockstep", new Simulator(spec.withReplicates(1000)).kernel(), "a short run: not worth the warm-up");
         assertEquals("lockstep", new Simulator(spec.withBurnIn(5)).kernel(), "burn-in: the auto-vectorised kernel");
+        SimulationSpec random = SimulationSpec.of(spec.match(), Horizon.continuation(0.995), 10_000_000, 1);
+        assertEquals("lockstep-simd", new Simulator(random).kernel(), "random lengths");
+        assertEquals("per-game", new Simulator(random.withReplicates(1000)).kernel(), "a short run of random lengths");
         assertTrue(new Simulator(spec).simdApplies());
     }
 
