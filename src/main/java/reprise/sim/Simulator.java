@@ -46,11 +46,17 @@ public final class Simulator {
     public static final String GENERATOR = "XO_RO_SHI_RO_128_PP";
 
     /**
-     * Fewest expected rounds of a run (a call of {@link #simulateRange}) for which the fused path uses the
-     * vector API kernel: loading the module, warming the kernel up and compiling it cost about a second of
-     * CPU time once per VM, which a run of 2^30 rounds (about a second of play) recovers.
+     * Fewest expected rounds, summed over the fused-path runs of this VM so far and the current one, from
+     * which the fused path uses the vector API kernel: loading the module, warming the kernel up and
+     * compiling it cost about a second of CPU time once per VM, which 2^30 rounds (about a second of play)
+     * recover. So a long run uses it from the start, and a sequence of short runs (a check's units) from
+     * the run that reaches the sum.
      */
     static final double SIMD_MIN_ROUNDS = 0x1p30;
+
+    /** Expected rounds of the fused-path runs of this VM so far. */
+    private static final java.util.concurrent.atomic.DoubleAdder FUSED_ROUNDS =
+        new java.util.concurrent.atomic.DoubleAdder();
 
     /** Fewest games per chunk for which the fused path plays games in lockstep blocks. */
     static final long LOCKSTEP_MIN_GAMES = 32;
@@ -188,8 +194,12 @@ public final class Simulator {
         Progress progress = new Progress(listener, count, expected >= 0x1p63 ? Long.MAX_VALUE : (long) expected);
         AtomicLong nextChunk = new AtomicLong();
         List<Worker> kernels = new ArrayList<>();
+        if (fast) {
+            FUSED_ROUNDS.add(expected);
+        }
+        boolean simd = fast && FUSED_ROUNDS.sum() >= simdMinRounds;
         if (workers == 1) {
-            kernels.add(worker(chunk, expected >= simdMinRounds));
+            kernels.add(worker(chunk, simd));
             work(kernels.get(0), nextChunk, chunks, chunk, from, to, progress);
         } else {
             ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
@@ -197,7 +207,6 @@ public final class Simulator {
                 t.setDaemon(true);
                 return t;
             });
-            boolean simd = expected >= simdMinRounds;
             try {
                 // each worker allocates its own kernel, so that the hot arrays of two workers lie in
                 // different threads' allocation buffers, never on a shared cache line
@@ -284,7 +293,8 @@ public final class Simulator {
     /**
      * The engine a run of all replicates uses, for reports: {@code "lockstep-simd"} (games in lockstep in
      * the vector API's 512-bit vectors, with random lengths a lane taking the next game when its game
-     * ends; for runs of at least {@link #SIMD_MIN_ROUNDS} expected rounds where the VM has the vector API),
+     * ends; where the VM has the vector API, once the VM's fused-path runs reach {@link #SIMD_MIN_ROUNDS}
+     * expected rounds),
      * {@code "lockstep"} (lockstep blocks the JIT vectorises),
      * {@code "per-game"} (the fused path one game at a time), {@code "literal"} or {@code "agent"}. The
      * choice never changes a result.
@@ -293,7 +303,7 @@ public final class Simulator {
      */
     public String kernel() {
         if (fast) {
-            if (spec.replicates() * spec.horizon().expectedLength() >= simdMinRounds
+            if (FUSED_ROUNDS.sum() + spec.replicates() * spec.horizon().expectedLength() >= simdMinRounds
                 && chunkSize() >= LOCKSTEP_MIN_GAMES && VectorModule.available()
                 && SimdLockstepKernel.supports(plan, fusedTables())) {
                 return "lockstep-simd";
