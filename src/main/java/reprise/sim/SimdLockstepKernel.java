@@ -9,21 +9,23 @@ import jdk.incubator.vector.VectorSpecies;
  * {@link LockstepKernel} written with the JDK's vector API: the same games, draws, decisions and
  * counters, so the same tallies bit for bit, with the lanes held in 512-bit vectors of 8 games.
  *
- * <p>Implementation note. A block of up to 256 games is played in stretches of at most 15 rounds (one
- * fill of the 4-bit transition counters of {@link LaneCounters}). For each vector of 8 lanes, one method
- * steps the 8 generators through the stretch with their words in registers and writes the draws to a
- * small buffer (15 vectors, in the L1 cache); a second method reads them back and decides and counts the
- * stretch with the players' last moves (masks, 0 cooperated or -1 defected) and the lanes' counters in
- * registers. Per round and vector that is nine operations for XoRoShiRo128++, six to select the packed
- * limits of the last state (c0 + (my &amp; c1) + (mx &amp; (c2 + (my &amp; c3))), as in
- * {@code LockstepKernel.DecidePacked}), eight for the two decisions and seven to add 1 &lt;&lt; 4 (4 s + s')
- * to the counters with one per-lane variable shift. The work is split in two methods because C2 (JDK 17)
- * stops inlining the vector API's methods once a compilation holds about 18,000 nodes
- * ({@code NodeCountInliningCutoff}), and a vector that is not inlined is allocated: one loop with both
- * stages, or with more than one vector, ran at a tenth of the speed. Shuffles ({@code rearrange},
- * {@code selectFrom}) were slower than the arithmetic selection; lane masks are avoided for the same
- * reason. The kernel takes the common case: two players whose limits all fit in 32 bits, no burn-in,
- * no snapshot or time-resolved rounds; {@link Simulator} uses {@link LockstepKernel} otherwise.
+ * <p>Implementation note. Fixed horizon: a block of up to 256 games is played in stretches of at most
+ * 15 rounds (one fill of the 4-bit transition counters of {@link LaneCounters}). {@link #drawBlock} steps
+ * all lanes' generators through the stretch in a plain loop, which C2 compiles to 512-bit code with
+ * single-instruction rotations, and writes the draws to a buffer per round; then, for each vector of 8
+ * lanes, {@link #decideAndCount} decides and counts the stretch with the players' last moves (masks, 0
+ * cooperated or -1 defected) and the lanes' counters held in registers. Per round and vector that is
+ * about nine instructions for XoRoShiRo128++, four to select the packed limits X 2^32 + Y of the last
+ * state, three for both decisions (the borrow of two 32-bit subtractions), three to widen them to masks
+ * and six to add 1 &lt;&lt; 4 (4 s + s') to the counters with one per-lane variable shift. Random
+ * lengths: 64 lanes, each vector on its own ({@link #runRefilled}). The work is split into methods of one
+ * stage and one vector because C2 (JDK 17) stops inlining the vector API's methods once a compilation
+ * holds about 18,000 nodes ({@code NodeCountInliningCutoff}), and a vector that is not inlined is
+ * allocated: one loop with both stages, or with more than one vector, ran at a tenth of the speed.
+ * Shuffles ({@code rearrange}, {@code selectFrom}) were slower than the bitwise selection, and lane masks
+ * are avoided for the same reason. The kernel takes the common case: two players whose limits all fit in
+ * 32 bits, no burn-in, no snapshot or time-resolved rounds; {@link Simulator} uses the other kernels
+ * otherwise.
  */
 final class SimdLockstepKernel extends Worker {
     /** The vector width the kernel is written for. */
@@ -415,7 +417,7 @@ final class SimdLockstepKernel extends Worker {
         }
     }
 
-    /** Steps the generators of lanes [o, o + 8) m times, the draws to {@link #draws}. */
+    /** Random lengths: steps the generators of lanes [o, o + 8) m times, the draws to {@link #draws}. */
     private void draw(int m, int o) {
         final long[][] out = draws;
         LongVector a = LongVector.fromArray(SPECIES, word0, o);
