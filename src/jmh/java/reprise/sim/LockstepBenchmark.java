@@ -22,8 +22,11 @@ public class LockstepBenchmark extends BenchmarkSettings {
     private static final int GAMES = 335_544;
     private static final int ROUNDS = 200;
 
-    @Param({"wsls-tft", "memory1"})
+    @Param({"wsls-tft", "memory1", "wsls-tft-perception"})
     public String players;
+
+    @Param({"simd", "auto"})
+    public String kernel;
 
     @Param({"1", "2"})
     public int threads;
@@ -33,14 +36,18 @@ public class LockstepBenchmark extends BenchmarkSettings {
     @Setup
     public void setUp() {
         StageGame g = StageGame.DEFAULT;
-        Match m = players.equals("wsls-tft")
+        Match m = players.startsWith("wsls-tft")
             ? new Match(g, Strategies.parse("wsls", g, Player.X), Strategies.parse("tft", g, Player.Y),
-                Noise.symmetric(0.01, 0))
+                Noise.symmetric(0.01, players.endsWith("perception") ? 0.01 : 0))
             : new Match(g, Strategies.parse("memory1:0.9,0.2,0.7,0.1", g, Player.X), Strategies.parse("wsls", g,
                 Player.Y), Noise.symmetric(0.05, 0));
-        simulator = new Simulator(SimulationSpec.of(m, Horizon.rounds(ROUNDS), GAMES, 1).withThreads(threads));
-        if (!simulator.playsInLockstep()) {
-            throw new IllegalStateException("this benchmark must play in lockstep");
+        boolean simd = kernel.equals("simd");
+        simulator = new Simulator(SimulationSpec.of(m, Horizon.rounds(ROUNDS), GAMES, 1).withThreads(threads), 0,
+            simd ? 0 : Double.POSITIVE_INFINITY);
+        String expected = simd ? "lockstep-simd" : "lockstep";
+        if (!simulator.kernel().equals(expected)) {
+            throw new IllegalStateException("this benchmark must run " + expected + ", not " + simulator.kernel()
+                + " (vector API: " + Simulator.vectorStatus() + ")");
         }
     }
 

@@ -127,6 +127,36 @@ final class Accumulator {
         }
     }
 
+    /**
+     * Adds the per-game statistics of games of varying length that tallied every round (no burn-in):
+     * the same sums as {@link #recordGame} once per game.
+     *
+     * @param count the number of games, at least 1
+     * @param lengthSum the sum of their lengths
+     * @param lengthMin the shortest length, at least 1
+     * @param lengthMax the longest
+     * @param lengthSquares the sum of their squared lengths (no overflow)
+     * @param lengthStates index s: the sum over the games of L N_s
+     * @param pairSums index 4 s + r: the sum over the games of N_s N_r
+     */
+    void recordWholeGames(long count, long lengthSum, long lengthMin, long lengthMax, long lengthSquares,
+        long[] lengthStates, long[] pairSums) {
+        games = Math.addExact(games, count);
+        this.lengthSum = Math.addExact(this.lengthSum, lengthSum);
+        this.lengthMin = Math.min(this.lengthMin, lengthMin);
+        this.lengthMax = Math.max(this.lengthMax, lengthMax);
+        Wide.add(this.lengthSquares, 0, 0, lengthSquares);
+        gamesTallied = Math.addExact(gamesTallied, count);
+        talliedSum = Math.addExact(talliedSum, lengthSum);
+        Wide.add(talliedSquares, 0, 0, lengthSquares);
+        for (int s = 0; s < 4; s++) {
+            Wide.add(lengthStateSums, s, 0, lengthStates[s]);
+        }
+        for (int i = 0; i < 16; i++) {
+            Wide.add(productSums, i, 0, pairSums[i]);
+        }
+    }
+
     void merge(Accumulator o) {
         addAll(states, o.states);
         addAll(steps, o.steps);

@@ -85,6 +85,25 @@ final class LaneCounters {
         }
     }
 
+    /** Counted rounds the 4-bit counters can still absorb before they must be spilled, 1 to 15. */
+    int roundsBeforeSpill() {
+        return NIBBLE_ROUNDS - nibbleLoad;
+    }
+
+    /**
+     * Notes that m rounds, at most {@link #roundsBeforeSpill()}, have been added to every lane's 4-bit
+     * counters.
+     */
+    void counted(int lanes, int m) {
+        if (!(m >= 1 && m <= roundsBeforeSpill())) {
+            throw new IllegalArgumentException("rounds must be in [1, " + roundsBeforeSpill() + "]: " + m);
+        }
+        nibbleLoad += m;
+        if (nibbleLoad == NIBBLE_ROUNDS) {
+            spillNibbles(lanes);
+        }
+    }
+
     /** Adds the block's tallies and per-game statistics (games of length n, burn-in as given) to acc. */
     void finish(int lanes, long n, long burnIn, Accumulator acc) {
         spillNibbles(lanes);

@@ -27,7 +27,8 @@ import reprise.game.Strategy;
  * Two memory-one players take a fused, equally distributed fast path unless {@link Enactment#LITERAL}
  * is asked for (see {@code FusedMemoryOneKernel}); with a fixed horizon the games of a chunk are then
  * played in lockstep blocks ({@code LockstepKernel}: the same draws and decisions, so the same results,
- * compiled to SIMD instructions). Everything else takes the literal path with one draw per uncertain
+ * compiled to SIMD instructions; {@code SimdLockstepKernel} the same with the JDK's vector API where the VM
+ * provides it, see {@link #kernel()}). Everything else takes the literal path with one draw per uncertain
  * event.
  *
  * <p>Reproducibility: game i is a function of (seed, i) only (see {@link #replicateGenerator}). Work is
@@ -44,6 +45,20 @@ public final class Simulator {
     /** The generator of every replicate stream, as a Commons RNG {@code RandomSource} name. */
     public static final String GENERATOR = "XO_RO_SHI_RO_128_PP";
 
+    /**
+     * Fewest expected rounds, summed over the fused-path runs of this VM so far and the current one, from
+     * which the fused path uses the vector API kernel with a fixed horizon: loading the module, warming
+     * the kernel up and compiling it cost about a second of CPU time once per VM, which 2^30 rounds
+     * recover at the fixed-horizon gain (about 0.3 ns a round). With random lengths the gain over one game
+     * at a time is five times larger, and a quarter of this suffices. So a long run uses it from the
+     * start, and a sequence of short runs (a check's units) from the run that reaches the sum.
+     */
+    static final double SIMD_MIN_ROUNDS = 0x1p30;
+
+    /** Expected rounds of the fused-path runs of this VM so far. */
+    private static final java.util.concurrent.atomic.DoubleAdder FUSED_ROUNDS =
+        new java.util.concurrent.atomic.DoubleAdder();
+
     /** Fewest games per chunk for which the fused path plays games in lockstep blocks. */
     static final long LOCKSTEP_MIN_GAMES = 32;
 
@@ -57,6 +72,7 @@ public final class Simulator {
     private final Plan plan;
     private final String configuration;
     private final long chunkReplicates;
+    private final double simdMinRounds;
 
     /**
      * Prepares a run: checks the agents and the memory the tallies need.
@@ -72,8 +88,14 @@ public final class Simulator {
 
     /** With a fixed chunk size in replicates (0: derived from the spec); for tests of the chunking. */
     Simulator(SimulationSpec spec, long chunkReplicates) {
+        this(spec, chunkReplicates, SIMD_MIN_ROUNDS);
+    }
+
+    /** With a fixed chunk size and another least run size for the vector kernel (testing hooks). */
+    Simulator(SimulationSpec spec, long chunkReplicates, double simdMinRounds) {
         this.spec = spec;
         this.chunkReplicates = chunkReplicates;
+        this.simdMinRounds = simdMinRounds;
         Match m = spec.match();
         Agents.create(m.x());
         Agents.create(m.y());
@@ -173,8 +195,12 @@ public final class Simulator {
         Progress progress = new Progress(listener, count, expected >= 0x1p63 ? Long.MAX_VALUE : (long) expected);
         AtomicLong nextChunk = new AtomicLong();
         List<Worker> kernels = new ArrayList<>();
+        if (fast) {
+            FUSED_ROUNDS.add(expected);
+        }
+        boolean simd = fast && FUSED_ROUNDS.sum() >= simdThreshold();
         if (workers == 1) {
-            kernels.add(worker(chunk));
+            kernels.add(worker(chunk, simd));
             work(kernels.get(0), nextChunk, chunks, chunk, from, to, progress);
         } else {
             ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
@@ -188,7 +214,7 @@ public final class Simulator {
                 List<Future<Worker>> futures = new ArrayList<>();
                 for (int w = 0; w < workers; w++) {
                     futures.add(pool.submit(() -> {
-                        Worker k = worker(chunk);
+                        Worker k = worker(chunk, simd);
                         work(k, nextChunk, chunks, chunk, from, to, progress);
                         return k;
                     }));
@@ -220,6 +246,10 @@ public final class Simulator {
             spec.match().game().payoffY(), List.of(new SimulationResult.ReplicateRange(from, to)), total);
     }
 
+    private double simdThreshold() {
+        return plan.fixedRounds() > 0 ? simdMinRounds : simdMinRounds / 4;
+    }
+
     private long chunkSize() {
         return chunkReplicates > 0 ? chunkReplicates : (long) Math.max(1, Math.min(1 << 20,
             Math.floor(ROUNDS_PER_CHUNK / spec.horizon().expectedLength())));
@@ -242,13 +272,18 @@ public final class Simulator {
      * The engine of one worker. On the fused path with a fixed horizon and chunks of at least
      * {@link #LOCKSTEP_MIN_GAMES} games, the games of a chunk are played in lockstep blocks
      * ({@link LockstepKernel}, the same draws and decisions as the per-game fused kernel, so the choice
-     * changes speed only).
+     * changes speed only), in the vector API's registers ({@link SimdLockstepKernel}) where the VM has the
+     * module and the plan is the plain one that kernel takes.
      */
-    private Worker worker(long chunk) {
+    private Worker worker(long chunk, boolean simd) {
         Match m = spec.match();
         Accumulator acc = new Accumulator(historyMemory, plan.snapshotRounds(), plan.timeRounds());
         if (fast) {
             FusedTables t = fusedTables();
+            if (simd && chunk >= LOCKSTEP_MIN_GAMES && VectorModule.available()
+                && SimdLockstepKernel.supports(plan, t)) {
+                return SimdLockstepKernel.create(plan, acc, t);
+            }
             if (plan.fixedRounds() > 0 && chunk >= LOCKSTEP_MIN_GAMES) {
                 return new LockstepKernel(plan, acc, t);
             }
@@ -260,6 +295,38 @@ public final class Simulator {
         return new AgentKernel(plan, acc, Agents.create(m.x()), Agents.create(m.y()), m.noise());
     }
 
+    /**
+     * The engine a run of all replicates uses, for reports: {@code "lockstep-simd"} (games in lockstep in
+     * the vector API's 512-bit vectors, with random lengths a lane taking the next game when its game
+     * ends; where the VM has the vector API, once the VM's fused-path runs reach {@link #SIMD_MIN_ROUNDS}
+     * expected rounds),
+     * {@code "lockstep"} (lockstep blocks the JIT vectorises),
+     * {@code "per-game"} (the fused path one game at a time), {@code "literal"} or {@code "agent"}. The
+     * choice never changes a result.
+     *
+     * @return the engine's name
+     */
+    public String kernel() {
+        if (fast) {
+            if (FUSED_ROUNDS.sum() + spec.replicates() * spec.horizon().expectedLength() >= simdThreshold()
+                && chunkSize() >= LOCKSTEP_MIN_GAMES && VectorModule.available()
+                && SimdLockstepKernel.supports(plan, fusedTables())) {
+                return "lockstep-simd";
+            }
+            return playsInLockstep() ? "lockstep" : "per-game";
+        }
+        return tables ? "literal" : "agent";
+    }
+
+    /**
+     * Why the vector API engine is or is not available in this VM, in one line ("available" when it is).
+     *
+     * @return the status
+     */
+    public static String vectorStatus() {
+        return VectorModule.status();
+    }
+
     /** Whether a run of all replicates plays games in lockstep blocks (a testing hook). */
     boolean playsInLockstep() {
         return fast && plan.fixedRounds() > 0 && chunkSize() >= LOCKSTEP_MIN_GAMES;
@@ -268,6 +335,16 @@ public final class Simulator {
     /** Testing hook: the lockstep kernel on one thread, with a limit for per-block statistics. */
     SimulationResult simulateLockstep(long from, long to, long blockStatisticsLength) {
         return runAlone(from, to, acc -> new LockstepKernel(plan, acc, fusedTables(), blockStatisticsLength));
+    }
+
+    /** Testing hook: the vector API lockstep kernel on one thread (only where it is available and applies). */
+    SimulationResult simulateSimd(long from, long to) {
+        return runAlone(from, to, acc -> SimdLockstepKernel.create(plan, acc, fusedTables()));
+    }
+
+    /** Whether the vector API lockstep kernel can play this spec in this VM (a testing hook). */
+    boolean simdApplies() {
+        return fast && VectorModule.available() && SimdLockstepKernel.supports(plan, fusedTables());
     }
 
     /** Testing hook: the per-game fused kernel on one thread, whatever the horizon and chunking. */

@@ -86,6 +86,75 @@ class LockstepTest {
         assertEquals(perGame, lockstep.run(), "lockstep on 2 threads, chunks of 97 games");
         assertEquals(perGame, new Simulator(spec.withThreads(1)).run(), "default chunks, 1 thread");
         assertEquals(perGame, lockstep.simulateLockstep(0, replicates, 0), "per-game statistics branch");
+        assertEquals(perGame, lockstep.simulateLockstep(0, replicates, LaneCounters.BLOCK_STATISTICS_LENGTH),
+            "auto-vectorised lockstep kernel, whatever the VM offers");
+
+        // the vector API kernel takes only plans without burn-in, snapshots and time-resolved rounds
+        SimulationSpec plain = SimulationSpec.of(DeterminismTest.match(x, y, noise), Horizon.rounds(n), replicates,
+            700 + c);
+        Simulator simd = new Simulator(plain, 97, 0);
+        if (simd.simdApplies()) {
+            SimulationResult expected = new Simulator(plain).simulatePerGame(0, replicates);
+            assertEquals(expected, simd.simulateSimd(0, replicates), "vector API kernel");
+            assertEquals(expected, new Simulator(plain.withThreads(2), 97, 0).run(), "2 threads, chunks of 97 games");
+            assertEquals("lockstep-simd", simd.kernel());
+        }
+    }
+
+    static Stream<Arguments> randomLengthCases() {
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(20261202L);
+        double[] continuation = {0, 0.3, 0.9, 0.97, 0.995, 0.999};
+        Stream.Builder<Arguments> b = Stream.builder();
+        for (int c = 0; c < 12; c++) {
+            Noise noise = new Noise(0.001 + pick(rng, 0.1), 0.001 + pick(rng, 0.1), pick(rng, 0.2), pick(rng, 0.2));
+            int replicates = 1 + rng.nextInt(c < 6 ? 300 : 3000);
+            b.add(Arguments.of(c, strategy(rng), strategy(rng), noise, continuation[c % continuation.length],
+                replicates));
+        }
+        b.add(Arguments.of(12, "wsls", "tft", Noise.symmetric(0.01, 0), 0.995, 2000));
+        return b.build();
+    }
+
+    /**
+     * Random lengths in lockstep: a lane whose game ends takes the next game of the chunk, so lanes play
+     * games of different lengths side by side; the tallies (and every per-game statistic) must be those
+     * of playing the games one by one. Continuation probabilities from 0 (one-round games, played at the
+     * start) to 0.999 (games past the 255-round spill of the 8-bit counters), every player with some
+     * execution error so that the vector kernel applies.
+     */
+    @ParameterizedTest(name = "random lengths {0}: {1} vs {2}, delta = {4}, {5} games")
+    @MethodSource("randomLengthCases")
+    void randomLengthsInLockstepEqualPerGame(int c, String x, String y, Noise noise, double delta, int replicates) {
+        SimulationSpec spec = SimulationSpec.of(DeterminismTest.match(x, y, noise), Horizon.continuation(delta),
+            replicates, 900 + c);
+        Simulator simd = new Simulator(spec.withThreads(2), 97, 0);
+        org.junit.jupiter.api.Assumptions.assumeTrue(simd.simdApplies(), "vector kernel not available");
+        SimulationResult perGame = new Simulator(spec).simulatePerGame(0, replicates);
+        assertEquals(perGame, simd.simulateSimd(0, replicates), "one call over all games");
+        assertEquals(perGame, simd.run(), "2 threads, chunks of 97 games");
+        assertEquals("lockstep-simd", new Simulator(spec, 0, 0).kernel());
+    }
+
+    /**
+     * The build runs the tests with the export that lets the vector API be loaded, as the jar's manifest
+     * does; so unless it is turned off, the vector kernel must be in use (and compared above).
+     */
+    @Test
+    void vectorKernelIsAvailableUnderTest() {
+        org.junit.jupiter.api.Assumptions.assumeFalse("off".equals(System.getProperty("reprise.simd")),
+            "vector kernel turned off");
+        assertEquals("available", Simulator.vectorStatus());
+        SimulationSpec spec = SimulationSpec.of(DeterminismTest.match("wsls", "tft", Noise.symmetric(0.01, 0)),
+            Horizon.rounds(200), 10_000_000, 1);
+        assertEquals("lockstep-simd", new Simulator(spec).kernel(), "2e9 rounds");
+        assertEquals("lockstep", new Simulator(spec.withReplicates(1000), 0, 1e300).kernel(),
+            "before the VM's fused runs reach the least number of rounds");
+        assertEquals("lockstep", new Simulator(spec.withBurnIn(5)).kernel(), "burn-in: the auto-vectorised kernel");
+        SimulationSpec random = SimulationSpec.of(spec.match(), Horizon.continuation(0.995), 10_000_000, 1);
+        assertEquals("lockstep-simd", new Simulator(random).kernel(), "random lengths");
+        assertEquals("per-game", new Simulator(random.withReplicates(1000), 0, 1e300).kernel(),
+            "random lengths, before the VM's fused runs reach the least number of rounds");
+        assertTrue(new Simulator(spec).simdApplies());
     }
 
     @Test
