@@ -7,6 +7,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
+import reprise.sim.SimulationSpec;
 
 /** {@code merge}: joins the shards of a sharded {@code check} into the results of an unsharded run. */
 @Command(name = "merge", mixinStandardHelpOptions = true,
@@ -35,9 +36,15 @@ final class MergeCommand implements Callable<Integer> {
     @Option(names = "--force", description = "Replace the results of an earlier run in the output folder.")
     boolean force;
 
+    @Option(names = "--threads", paramLabel = "N", description = "Threads of the merge: cases are joined and analysed, "
+        + "and figures drawn, in parallel (the results do not depend on it). Default: all cores.")
+    Integer threads;
+
     @Override
     public Integer call() {
-        return Shards.merge(dir, file, out, force, spec.commandLine().getParseResult().originalArgs(),
+        int n = threads == null ? Math.min(Runtime.getRuntime().availableProcessors(), SimulationSpec.MAX_THREADS)
+            : threads;
+        return Shards.merge(dir, file, out, force, n, spec.commandLine().getParseResult().originalArgs(),
             spec.commandLine().getOut(), spec.commandLine().getErr(), "merge");
     }
 }

@@ -3,7 +3,16 @@ package reprise.run;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.function.IntFunction;
 import reprise.experiment.Case;
 import reprise.experiment.CaseResult;
 import reprise.experiment.Curves;
@@ -66,6 +75,102 @@ final class Outputs {
     }
 
     /**
+     * Joins the unit tallies of every case with the case's exact side on several threads, case by case
+     * (the exact side, the simulation summary and the per-case statistics of one case do not depend on
+     * another's), so a merge's cost is the work per case divided by the threads. The results are those of
+     * {@link #byCase}, in case order.
+     *
+     * @param job the job
+     * @param units all its units
+     * @param source the tallies of each unit (read concurrently)
+     * @param threads worker threads, at least 1
+     * @return the case results, in case order
+     */
+    static List<CaseResult> byCaseInParallel(Job job, List<WorkPlan.Unit> units, UnitSource source, int threads) {
+        Map<Integer, List<WorkPlan.Unit>> byCase = new HashMap<>();
+        for (WorkPlan.Unit u : units) {
+            byCase.computeIfAbsent(u.caseIndex(), k -> new ArrayList<>()).add(u);
+        }
+        List<Case> cases = job.cases();
+        return inParallel(cases.size(), threads, i -> {
+            Case c = cases.get(i);
+            SimulationResult merged = null;
+            for (WorkPlan.Unit u : byCase.getOrDefault(c.index(), List.of())) {
+                SimulationResult r = source.tally(c, u);
+                merged = merged == null ? r : merged.merge(r);
+            }
+            return Runner.fromSimulation(job.experiment(), c, merged);
+        });
+    }
+
+    /**
+     * Computes f(0), ..., f(n - 1) on up to {@code threads} threads and returns them in order; the first
+     * exception thrown by f is rethrown (unchecked exceptions and errors as they are).
+     */
+    static <T> List<T> inParallel(int n, int threads, IntFunction<T> f) {
+        int workers = Math.max(1, Math.min(threads, n));
+        List<T> out = new ArrayList<>(Collections.nCopies(n, null));
+        if (workers == 1) {
+            for (int i = 0; i < n; i++) {
+                out.set(i, f.apply(i));
+            }
+            return out;
+        }
+        ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
+            Thread t = new Thread(r, "reprise-merge");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            List<Future<T>> futures = new ArrayList<>();
+            for (int i = 0; i < n; i++) {
+                int k = i;
+                futures.add(pool.submit(() -> f.apply(k)));
+            }
+            for (int i = 0; i < n; i++) {
+                out.set(i, futures.get(i).get());
+            }
+            return out;
+        } catch (InterruptedException ex) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted", ex);
+        } catch (ExecutionException ex) {
+            Throwable cause = ex.getCause();
+            if (cause instanceof RuntimeException re) {
+                throw re;
+            }
+            if (cause instanceof Error er) {
+                throw er;
+            }
+            throw new IllegalStateException(cause);
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    /**
+     * Draws the figures, one (figure, group) per task on up to {@code threads} threads; the same files and
+     * list, in the same order (figures in order of first appearance, groups within each), as
+     * {@link Plotter#draw} on all the points, since each figure is drawn from its own points only.
+     */
+    static List<Plotter.Drawn> draw(List<Curves.Point> points, Path figures, int threads) {
+        if (threads <= 1) {
+            return Plotter.draw(points, figures);
+        }
+        Map<String, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
+        for (Curves.Point p : points) {
+            byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
+                .computeIfAbsent(p.group(), k -> new ArrayList<>()).add(p);
+        }
+        List<List<Curves.Point>> groups = new ArrayList<>();
+        byFigure.values().forEach(g -> groups.addAll(g.values()));
+        List<List<Plotter.Drawn>> drawn = inParallel(groups.size(), threads, i -> Plotter.draw(groups.get(i), figures));
+        List<Plotter.Drawn> out = new ArrayList<>();
+        drawn.forEach(out::addAll);
+        return out;
+    }
+
+    /**
      * Writes curves.csv, figures/, results.csv, cases.csv, report.md and run.json.
      *
      * @param dir the output folder
@@ -73,9 +178,26 @@ final class Outputs {
      * @param settings the run's settings (command line, tool version)
      * @param finished the results
      * @param start when the run started
-     * @param nThreads worker threads
+     * @param nThreads worker threads of the simulation (recorded in run.json)
      */
     static void write(Path dir, Job job, RunSettings settings, Finished finished, Instant start, int nThreads) {
+        write(dir, job, settings, finished, start, nThreads, 1);
+    }
+
+    /**
+     * Writes curves.csv, figures/, results.csv, cases.csv, report.md and run.json, drawing the figures on
+     * several threads.
+     *
+     * @param dir the output folder
+     * @param job the job
+     * @param settings the run's settings (command line, tool version)
+     * @param finished the results
+     * @param start when the run started
+     * @param nThreads worker threads of the simulation (recorded in run.json)
+     * @param drawThreads threads that draw the figures
+     */
+    static void write(Path dir, Job job, RunSettings settings, Finished finished, Instant start, int nThreads,
+        int drawThreads) {
         Experiment e = job.experiment();
         List<CaseResult> results = finished.results();
         Runner.Outcome outcome = finished.outcome();
@@ -83,7 +205,7 @@ final class Outputs {
         List<Case> cases = results.stream().map(CaseResult::c).toList();
         List<Curves.Point> points = Curves.of(e, results, outcome.rows(), 1 - e.alpha());
         CurvesCsv.write(dir.resolve("curves.csv"), points);
-        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"));
+        List<Plotter.Drawn> drawn = draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"), drawThreads);
         ResultsCsv.write(dir.resolve("results.csv"), cases, params, outcome.rows());
         CasesCsv.write(dir.resolve("cases.csv"), params, results);
         Instant end = Instant.now();

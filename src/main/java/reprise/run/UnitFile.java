@@ -23,7 +23,9 @@ import reprise.sim.TallyFile;
  * ({@link RunIdentity}): {@code experiment_file}, {@code experiment_sha256}, {@code claims_file} and
  * {@code claims_sha256} (null without claims), {@code seed}, {@code tool_version}; the part
  * ({@link Part}): {@code shard} (I, from 1) and {@code shards} (N); {@code units_total} (units of the
- * whole experiment), {@code threads}, {@code seconds} (simulation wall time, NaN if unknown) and
+ * whole experiment), {@code threads}, {@code seconds} (simulation wall time, NaN if unknown),
+ * {@code build} (the jar's or class folder's SHA-256 and the git commit, {@link Build}; absent in files
+ * written before it was recorded) and
  * {@code units}: one object per unit, in plan order, with {@code case_index}, {@code chunk}, {@code from},
  * {@code to} (game indexes, {@code to} exclusive) and {@code tally} (the simulator's exact tally object,
  * {@link TallyFile}).
@@ -51,8 +53,22 @@ public final class UnitFile {
      * @param unitsTotal the number of units of the whole experiment
      * @param threads worker threads used
      * @param seconds simulation wall time, NaN if unknown
+     * @param build the build that simulated the tallies ({@link Build#current()}), null if the file does not say
      */
-    public record Header(RunIdentity run, Part part, int unitsTotal, int threads, double seconds) {
+    public record Header(RunIdentity run, Part part, int unitsTotal, int threads, double seconds, String build) {
+
+        /**
+         * A header of tallies simulated by this process's build.
+         *
+         * @param run the run's identity
+         * @param part the part of the run
+         * @param unitsTotal the number of units of the whole experiment
+         * @param threads worker threads used
+         * @param seconds simulation wall time, NaN if unknown
+         */
+        public Header(RunIdentity run, Part part, int unitsTotal, int threads, double seconds) {
+            this(run, part, unitsTotal, threads, seconds, Build.current());
+        }
     }
 
     /**
@@ -126,6 +142,7 @@ public final class UnitFile {
         o.put("units_total", h.unitsTotal());
         o.put("threads", h.threads());
         o.put("seconds", h.seconds());
+        putNullable(o, "build", h.build());
         ArrayNode units = o.putArray("units");
         for (UnitTally u : content.units()) {
             ObjectNode n = units.addObject();
@@ -186,7 +203,8 @@ public final class UnitFile {
             o.hasNonNull("claims_sha256") ? o.get("claims_sha256").asText() : null, o.get("seed").asLong(),
             o.get("tool_version").asText());
         return new Header(id, new Part(o.get("shard").asInt(), o.get("shards").asInt()), o.get("units_total").asInt(),
-            o.path("threads").asInt(1), o.path("seconds").asDouble(Double.NaN));
+            o.path("threads").asInt(1), o.path("seconds").asDouble(Double.NaN),
+            o.hasNonNull("build") ? o.get("build").asText() : null);
     }
 
     private static List<UnitTally> units(JsonNode o) {

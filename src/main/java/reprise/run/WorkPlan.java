@@ -42,18 +42,44 @@ public final class WorkPlan {
     }
 
     /**
-     * All units of an experiment, case by case, chunk by chunk.
+     * All units of an experiment, case by case, chunk by chunk, in the cut of an unsharded run.
      *
      * @param e the experiment
      * @param cases its cases
      * @return the units
      */
     public static List<Unit> units(Experiment e, List<Case> cases) {
+        return units(e, cases, 1);
+    }
+
+    /**
+     * All units of an experiment cut for a run of n shards. With n no larger than the units of the
+     * unsharded cut ({@link #units(Experiment, List)}), that cut; otherwise the cap on a unit's rounds
+     * becomes R / (2n), R the experiment's expected rounds, so that there are at least 2n units (unless a
+     * case has fewer games than its share) and every shard gets work, with the largest shard at most
+     * about 1.5 times the mean (the bound of largest-first assignment when no unit exceeds half the mean).
+     * Any cut gives bit-identical merged numbers, since a unit is only a range of game indexes.
+     *
+     * @param e the experiment
+     * @param cases its cases
+     * @param shards n, at least 1
+     * @return the units
+     */
+    public static List<Unit> units(Experiment e, List<Case> cases, int shards) {
+        List<Unit> base = cut(e, cases, ROUNDS_PER_UNIT);
+        if (shards <= base.size()) {
+            return base;
+        }
+        double total = base.stream().mapToDouble(Unit::expectedRounds).sum();
+        return cut(e, cases, Math.min(ROUNDS_PER_UNIT, total / (2.0 * shards)));
+    }
+
+    private static List<Unit> cut(Experiment e, List<Case> cases, double roundsPerUnit) {
         List<Unit> out = new ArrayList<>();
         long g = e.replicates();
         for (Case c : cases) {
             double perGame = c.horizon().expectedLength();
-            long chunks = (long) Math.min(g, Math.max(1, Math.ceil(g * perGame / ROUNDS_PER_UNIT)));
+            long chunks = (long) Math.min(g, Math.max(1, Math.ceil(g * perGame / roundsPerUnit)));
             for (int k = 0; k < chunks; k++) {
                 long from = g * k / chunks;
                 long to = g * (k + 1) / chunks;

@@ -163,20 +163,37 @@ class ShardsTest {
     }
 
     @Test
-    void emptyShardsWriteAFileAndRerunsReplaceTheirOwn() throws IOException {
-        Path dir = shardAll(tmp.resolve("empty"), 7);
-        ObjectNode s7 = (ObjectNode) Json.MAPPER.readTree(dir.resolve("shards/shard-7-of-7.json").toFile());
-        assertEquals(0, s7.get("units").size(), "4 units over 7 shards leave shard 7 empty");
-        assertEquals(4, s7.get("units_total").asInt());
-        assertEquals(7, s7.get("shards").asInt());
+    void moreShardsThanUnitsCutUnitsFinerAndRerunsReplaceTheirOwn() throws IOException {
+        Path dir = shardAll(tmp.resolve("finer"), 7);
+        for (int i = 1; i <= 7; i++) {
+            ObjectNode s = (ObjectNode) Json.MAPPER.readTree(dir.resolve("shards/shard-" + i + "-of-7.json").toFile());
+            assertTrue(s.get("units").size() >= 1, "4 units cut finer for 7 shards leave shard " + i + " without work");
+            assertTrue(s.get("units_total").asInt() >= 14, "at least 2N units: " + s.get("units_total"));
+            assertEquals(7, s.get("shards").asInt());
+        }
         Path one = dir.resolve("shards/shard-1-of-7.json");
+        int unitsOfOne = Json.MAPPER.readTree(one.toFile()).get("units").size();
         Files.writeString(one, "not json");
         Run r = run("check", experiment.toString(), "--shard", "1/7", "--out", dir.toString(), "--quiet");
         assertEquals(0, r.code(), r.err());
         try (Stream<Path> files = Files.list(dir.resolve("shards"))) {
-            assertEquals(7, files.count(), "a re-run replaces its file and leaves no temporary file");
+            assertEquals(7, files.count(), "a re-run replaces its file and leaves no temporary file or checkpoint");
         }
-        assertEquals(1, Json.MAPPER.readTree(one.toFile()).get("units").size());
+        assertEquals(unitsOfOne, Json.MAPPER.readTree(one.toFile()).get("units").size());
+    }
+
+    @Test
+    void shardsBeyondTheGamesStayEmptyButWriteAFile() throws IOException {
+        Path tiny = tmp.resolve("tiny.yaml");
+        Files.writeString(tiny, SMALL.replace("replicates: 300", "replicates: 2"));
+        Path dir = tmp.resolve("tiny");
+        for (int i = 1; i <= 9; i++) {
+            Run r = run("check", tiny.toString(), "--shard", i + "/9", "--out", dir.toString(), "--quiet");
+            assertEquals(0, r.code(), r.err());
+        }
+        ObjectNode s9 = (ObjectNode) Json.MAPPER.readTree(dir.resolve("shards/shard-9-of-9.json").toFile());
+        assertEquals(0, s9.get("units").size(), "4 cases of 2 games are at most 8 units: shard 9 of 9 is empty");
+        assertEquals(8, s9.get("units_total").asInt());
     }
 
     @ParameterizedTest
