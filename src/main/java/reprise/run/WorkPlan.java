@@ -56,7 +56,7 @@ public final class WorkPlan {
      * All units of an experiment cut for a run of n shards. With n no larger than the units of the
      * unsharded cut ({@link #units(Experiment, List)}), that cut; otherwise the cap on a unit's rounds
      * becomes R / (2n), R the experiment's expected rounds, so that there are at least 2n units (unless a
-     * case has fewer games than its share) and every shard gets work, with the largest shard at most
+     * case has fewer games than its share, or 2n exceeds {@link #MOST_UNITS}) and every shard gets work, with the largest shard at most
      * about 1.5 times the mean (the bound of largest-first assignment when no unit exceeds half the mean).
      * Any cut gives bit-identical merged numbers, since a unit is only a range of game indexes.
      *
@@ -67,12 +67,20 @@ public final class WorkPlan {
      */
     public static List<Unit> units(Experiment e, List<Case> cases, int shards) {
         List<Unit> base = cut(e, cases, ROUNDS_PER_UNIT);
-        if (shards <= base.size()) {
+        if (shards <= base.size() || base.size() >= MOST_UNITS) {
             return base;
         }
         double total = base.stream().mapToDouble(Unit::expectedRounds).sum();
-        return cut(e, cases, Math.min(ROUNDS_PER_UNIT, total / (2.0 * shards)));
+        double cap = total / (2.0 * Math.min(shards, MOST_UNITS / 2));
+        return cut(e, cases, Math.min(ROUNDS_PER_UNIT, cap));
     }
+
+    /**
+     * The most units a finer cut aims at (it may exceed this by at most one unit per case), since a merge
+     * holds every unit's tallies in memory: a run of more than half this many shards is cut into about this
+     * many units, and shards beyond the units get no work.
+     */
+    public static final int MOST_UNITS = 100_000;
 
     private static List<Unit> cut(Experiment e, List<Case> cases, double roundsPerUnit) {
         List<Unit> out = new ArrayList<>();
