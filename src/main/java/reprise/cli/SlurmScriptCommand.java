@@ -462,7 +462,8 @@ final class SlurmScriptCommand implements Callable<Integer> {
             + "--ntasks=1 --cpus-per-task=" + m.cpus() + " --mem=" + m.memMb() + "M --time=" + hms(m.seconds())
             + " \"${site[@]}\" --output=" + q(logs.resolve("merge-job-%j.out")) + " \"$merge_script\" </dev/null)");
         l.add("merge=${merge%%;*}");
-        l.add("echo \"array $array merge $merge tasks " + tasks + " submitted $(date -u +%Y-%m-%dT%H:%M:%SZ) $*\" >>"
+        l.add("echo \"array $array merge $merge tasks " + tasks + " script $self submitted $(date -u +%Y-%m-%dT%H:%M:%SZ) "
+            + "$*\" >>"
             + q(logs.resolve("jobs")));
         l.add("echo \"submitted array job $array and merge job $merge (after the array succeeds)\"");
         return String.join("\n", l) + "\n";
