@@ -172,7 +172,8 @@ final class StatusCommand implements Callable<Integer> {
             for (String line : out.strip().split("\\R")) {
                 String[] f = line.split("\\|");
                 if (f.length >= 2 && !f[0].isBlank()) {
-                    states.put(f[0], f[1] + (f.length > 2 && !f[2].equals("None") ? " (" + f[2] + ")" : ""));
+                    boolean why = f.length > 2 && f[1].equals("PENDING") && !f[2].equals("None");
+                    states.put(f[0], f[1] + (why ? " (" + f[2] + ")" : ""));
                 }
             }
         }
