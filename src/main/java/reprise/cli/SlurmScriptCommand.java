@@ -44,7 +44,9 @@ import reprise.run.WorkPlan;
  * minute;</li>
  * <li>heap = 128 MB + 16 MB per cpu + (cpus + 1 + 3u) b, and at least 2 (cpus + 1) b (the simulator
  * refuses tallies above half the heap), rounded up to 64 MB; mem = heap + {@value #NON_HEAP_MB} MB for
- * the JVM outside the heap (metaspace, code cache, thread stacks), rounded up to 64 MB.</li>
+ * the JVM outside the heap (metaspace, code cache, thread stacks), rounded up to 64 MB. The task's
+ * {@code -Xmx} is the memory Slurm grants ({@code SLURM_MEM_PER_NODE}) minus {@value #NON_HEAP_MB} MB, so a
+ * re-run with a larger {@code --mem} raises the heap too.</li>
  * </ul>
  * The merge job gets M = {@code --merge-cpus}, by default min({@value #MERGE_CPUS}, C), cpus (it joins and analyses cases and draws figures in
  * parallel), heap 256 MB + 64 MB per cpu + 3 U b, and time max(5 min, 60 s + s (C t / M + U * 1 ms)), t the
@@ -433,7 +435,8 @@ final class SlurmScriptCommand implements Callable<Integer> {
         l.add("}");
         l.add("if [[ -n ${SLURM_ARRAY_TASK_ID:-} ]]; then");
         setup.forEach(s -> l.add("  " + s));
-        l.add("  command_words " + t.heapMb() + "m");
+        l.add("  # the heap follows the memory Slurm granted (a re-run with --mem=... raises both)");
+        l.add("  command_words \"$(( ${SLURM_MEM_PER_NODE:-" + t.memMb() + "} - " + NON_HEAP_MB + " ))m\"");
         l.add("  exec \"${cmd[@]}\" check " + q(experiment) + " --shard \"$SLURM_ARRAY_TASK_ID/" + tasks
             + "\" --out " + q(dir) + " --threads " + t.cpus() + " --quiet");
         l.add("fi");
