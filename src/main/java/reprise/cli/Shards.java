@@ -101,7 +101,8 @@ final class Shards {
         if (job == null) {
             return Main.BAD_INPUT;
         }
-        RunProgress progress = new RunProgress(err, !cmd.quiet, job.cases().size(), ShardRun.expectedRounds(job, part));
+        RunProgress progress = new RunProgress(err, !cmd.quiet, job.cases().size(), ShardRun.expectedRounds(job, part))
+            .forShard();
         ShardRun.Written w;
         try {
             w = ShardRun.run(job, part, settings, progress);

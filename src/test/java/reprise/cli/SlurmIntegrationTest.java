@@ -219,6 +219,14 @@ class SlurmIntegrationTest {
         }
         exec(env, 10, "scancel", first[0]);
         String mergeState = waitForMergeToBeStuck(env, first[1]);
+        Path firstLog = out.resolve("slurm").resolve("shard-1-job-" + first[0] + ".out");
+        long logDeadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(30);
+        while (!(Files.isRegularFile(firstLog) && Files.readString(firstLog).contains("interrupted; 1 of 2 units are saved"))
+            && System.nanoTime() < logDeadline) {
+            Thread.sleep(200);
+        }
+        assertTrue(Files.readString(firstLog).contains("interrupted; 1 of 2 units are saved in "
+            + out.resolve("shards").resolve(".checkpoint-1-of-2") + "; run the same command again"), logs(out));
         ShardsTest.Run status = ShardsTest.run("status", out.toString());
         assertTrue(status.out().contains("2 shards: 0 done, 2 started but unfinished"), status.out());
         assertTrue(mergeState.equals("PENDING") || mergeState.equals("CANCELLED"), mergeState);
