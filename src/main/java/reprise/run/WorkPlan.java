@@ -54,8 +54,9 @@ public final class WorkPlan {
 
     /**
      * All units of an experiment cut for a run of n shards. With n no larger than the units of the
-     * unsharded cut ({@link #units(Experiment, List)}), that cut; otherwise the cap on a unit's rounds
-     * becomes R / (2n), R the experiment's expected rounds, so that there are at least 2n units (unless a
+     * unsharded cut ({@link #units(Experiment, List)}) and no unit of that cut above the mean shard R / n,
+     * that cut; otherwise (too few units, or one so large that its shard would be the run's bottleneck)
+     * the cap on a unit's rounds becomes R / (2n), R the experiment's expected rounds, so that there are at least 2n units (unless a
      * case has fewer games than its share, or 2n exceeds {@link #MOST_UNITS}) and every shard gets work, with the largest shard at most
      * about 1.5 times the mean (the bound of largest-first assignment when no unit exceeds half the mean).
      * Any cut gives bit-identical merged numbers, since a unit is only a range of game indexes.
@@ -67,10 +68,11 @@ public final class WorkPlan {
      */
     public static List<Unit> units(Experiment e, List<Case> cases, int shards) {
         List<Unit> base = cut(e, cases, ROUNDS_PER_UNIT);
-        if (shards <= base.size() || base.size() >= MOST_UNITS) {
+        double total = base.stream().mapToDouble(Unit::expectedRounds).sum();
+        double largest = base.stream().mapToDouble(Unit::expectedRounds).max().orElse(0);
+        if (shards <= base.size() && largest <= total / shards || base.size() >= MOST_UNITS) {
             return base;
         }
-        double total = base.stream().mapToDouble(Unit::expectedRounds).sum();
         double cap = total / (2.0 * Math.min(shards, MOST_UNITS / 2));
         return cut(e, cases, Math.min(ROUNDS_PER_UNIT, cap));
     }

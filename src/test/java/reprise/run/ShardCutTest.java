@@ -20,8 +20,8 @@ import org.junit.jupiter.params.provider.ValueSource;
 
 /**
  * Sharded runs through the run layer in this process: one experiment cut several ways (3, 16 and 64
- * shards, the last two cut finer than its unsharded units) merges into files byte-identical to an
- * unsharded run, with every shard doing work; a merge refuses a shard of another build; a shard re-run
+ * shards, each cut finer than its unsharded 4 units: too few units, or for 3 shards one unit larger than
+ * the mean shard) merges into files byte-identical to an unsharded run, with every shard doing work; a merge refuses a shard of another build; a shard re-run
  * takes back the units saved in its checkpoint. Identity is the design's claim (units are ranges of game
  * indexes with exact integer tallies), so the checks are byte equality, with no external source.
  */
@@ -77,7 +77,7 @@ class ShardCutTest {
         Path dir = shardAll(tmp.resolve("n" + n), n);
         Job job = Job.load(file, 1);
         int units = job.units(n).size();
-        assertTrue(n <= 4 ? units == 4 : units >= 2 * n, "units cut for " + n + " shards: " + units);
+        assertTrue(units >= 2 * n, "units cut for " + n + " shards: " + units);
         Merge.run(dir, ShardSet.read(dir, VERSION), job, settings(null, 2));
         for (String f : DATA) {
             assertArrayEquals(Files.readAllBytes(unsharded.resolve(f)), Files.readAllBytes(dir.resolve(f)),
