@@ -459,6 +459,13 @@ final class SlurmScriptCommand implements Callable<Integer> {
         l.add("  printf ' %q' \"${cmd[@]}\" merge " + q(dir) + " --force --threads " + m.cpus());
         l.add("  echo");
         l.add("} >\"$merge_script\"");
+        l.add("# Ask Slurm whether it would take the merge job before queueing the array, so that a merge job the");
+        l.add("# site refuses (account, partition, too many cpus) fails now and not after the array is queued.");
+        l.add("if ! why=$(sbatch --test-only " + "--ntasks=1 --cpus-per-task=" + m.cpus() + " --mem=" + m.memMb() + "M --time=" + hms(m.seconds())
+            + " \"${site[@]}\"" + " \"$merge_script\" 2>&1 </dev/null); then");
+        l.add("  echo \"the merge job would be refused, nothing submitted: $why\" >&2");
+        l.add("  exit 1");
+        l.add("fi");
         l.add("array=$(sbatch --parsable \"${site[@]}\" \"$@\" \"$self\" </dev/null)");
         l.add("array=${array%%;*}");
         l.add("merge=$(sbatch --parsable --dependency=afterok:\"$array\" --job-name=reprise-" + name + "-merge "

@@ -2,6 +2,7 @@ package reprise.cli;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assertions.fail;
 
@@ -247,6 +248,25 @@ class SlurmIntegrationTest {
         for (String f : ShardsTest.COMPARED) {
             assertArrayEquals(Files.readAllBytes(reference.resolve(f)), Files.readAllBytes(out.resolve(f)), f);
         }
+    }
+
+    /** A merge job the cluster cannot run (more cpus than the node has) is refused before the array is queued. */
+    @Test
+    void aMergeJobTheClusterRefusesQueuesNothing() throws Exception {
+        Map<String, String> env = slurmEnvironment();
+        Path experiment = tmp.resolve("small.yaml");
+        Files.writeString(experiment, ShardsTest.SMALL);
+        Path out = tmp.resolve("cluster");
+        Path script = tmp.resolve("submit.sh");
+        assertEquals(0, ShardsTest.run("slurm-script", experiment.toString(), "--tasks", "2", "--out", out.toString(),
+            "--jar", tmp.resolve("not-used.jar").toString(), "--rate", "5e7", "--merge-cpus", "512", "--script",
+            script.toString()).code());
+        String before = exec(env, 15, "squeue", "-h", "-o", "%i").out();
+        Result r = exec(env, 30, "bash", script.toString());
+        assertEquals(1, r.code(), r.out());
+        assertTrue(r.out().contains("the merge job would be refused, nothing submitted: "), r.out());
+        assertEquals(before, exec(env, 15, "squeue", "-h", "-o", "%i").out(), "no job queued");
+        assertFalse(Files.exists(out.resolve("slurm").resolve("jobs")), "no submission recorded");
     }
 
     static boolean hasUnit(Path checkpoint) throws IOException {
