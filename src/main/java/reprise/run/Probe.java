@@ -1,10 +1,7 @@
 package reprise.run;
 
 import java.util.ArrayList;
-import java.util.Comparator;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Map;
 import reprise.experiment.Case;
 import reprise.experiment.Runner;
 import reprise.sim.SimulationResult;
@@ -15,13 +12,16 @@ import reprise.sim.Simulator;
  * thread, the seconds a merge spends on one case (exact side, simulation summary and statistics), and the
  * largest heap of one tally.
  *
- * <p>Implementation note. The rate is measured on the cases with the most expected rounds (up to
- * {@value #CASES}), because they dominate a task's time: for each, games [0, k) are simulated with k
- * doubling from 1 until one batch takes a quarter of the case's share of the budget or every game has been
- * played; the rate is the pooled rounds over the pooled seconds of each case's last (warmest) batch. The
- * first batches run in the interpreter and are not counted, but a short probe still under-estimates a
- * warmed-up simulator (the JIT compiler keeps improving for seconds), which errs on the safe side of a time
- * limit. The per-case merge cost is the time of {@link Runner#fromSimulation} on the last batch of the
+ * <p>Implementation note. The rate depends on the strategies and strongly on the game length (short games
+ * pay a per-game cost), so it is measured on the experiment's own mix: up to {@value #CASES} cases evenly
+ * spread over the case list each simulate the same games [0, k), with k doubling from 1 until one pass
+ * over them takes a third of the budget (or every game has been played, or the budget is spent). Since
+ * every case has the same number of games, the pooled rate of the last pass, sum of rounds over sum of
+ * seconds, is the rate at which the sampled cases' rounds would be simulated in full. The first passes
+ * run in the interpreter and are not counted, but a short probe still under-estimates a warmed-up
+ * simulator (the JIT compiler keeps improving for seconds), which errs on the safe side of a time limit;
+ * a shard holding mostly the slowest cases can still run slower than the mix, which the safety factor
+ * of the time estimate covers. The per-case merge cost is the time of {@link Runner#fromSimulation} on the last batch of the
  * first probed case (its exact side does not depend on the games).
  *
  * @param roundsPerSecond simulated rounds per second on one thread
@@ -31,7 +31,7 @@ import reprise.sim.Simulator;
 public record Probe(double roundsPerSecond, double caseSeconds, long tallyBytes) {
 
     /** The most cases probed. */
-    public static final int CASES = 4;
+    public static final int CASES = 16;
 
     /**
      * @param job the job
@@ -53,36 +53,35 @@ public record Probe(double roundsPerSecond, double caseSeconds, long tallyBytes)
      * @return the measurement
      */
     public static Probe measure(Job job, double seconds) {
-        Map<Integer, Double> roundsByCase = new HashMap<>();
-        for (WorkPlan.Unit u : job.units()) {
-            roundsByCase.merge(u.caseIndex(), u.expectedRounds(), Double::sum);
-        }
         long tallyBytes = tallyBytes(job);
-        List<Case> probed = new ArrayList<>(job.cases());
-        probed.sort(Comparator.<Case>comparingDouble(c -> -roundsByCase.getOrDefault(c.index(), 0.0))
-            .thenComparingInt(Case::index));
-        probed = probed.subList(0, Math.min(CASES, probed.size()));
-        double share = seconds / probed.size();
+        List<Case> all = job.cases();
+        List<Case> probed = new ArrayList<>();
+        int step = (all.size() + CASES - 1) / CASES;
+        for (int i = 0; i < all.size(); i += step) {
+            probed.add(all.get(i));
+        }
+        List<Simulator> sims = new ArrayList<>();
+        probed.forEach(c -> sims.add(new Simulator(Runner.spec(job.experiment(), c, 1))));
+        long games = job.experiment().replicates();
         double rounds = 0;
         double time = 0;
+        double spent = 0;
         SimulationResult firstResult = null;
-        for (Case c : probed) {
-            Simulator sim = new Simulator(Runner.spec(job.experiment(), c, 1));
-            long games = job.experiment().replicates();
-            double spent = 0;
-            for (long k = 1;; k = Math.min(games, 2 * k)) {
+        for (long k = 1;; k = Math.min(games, 2 * k)) {
+            rounds = 0;
+            time = 0;
+            for (int i = 0; i < sims.size(); i++) {
                 long t0 = System.nanoTime();
-                SimulationResult r = sim.simulateRange(0, k, null);
-                double dt = (System.nanoTime() - t0) / 1e9;
-                spent += dt;
-                if (dt >= share / 4 || k == games || spent >= share) {
-                    rounds += r.roundsTotal();
-                    time += dt;
-                    if (firstResult == null) {
-                        firstResult = r;
-                    }
-                    break;
+                SimulationResult r = sims.get(i).simulateRange(0, k, null);
+                time += (System.nanoTime() - t0) / 1e9;
+                rounds += r.roundsTotal();
+                if (i == 0) {
+                    firstResult = r;
                 }
+            }
+            spent += time;
+            if (time >= seconds / 3 || k == games || spent >= seconds) {
+                break;
             }
         }
         double rate = time > 0 && rounds > 0 ? rounds / time : Double.NaN;
