@@ -14,7 +14,8 @@ import reprise.sim.SimulationSpec;
     description = {"Merges the shard files in DIR/shards (written by check FILE --shard I/N --out DIR) into "
         + "exactly the results an unsharded check of FILE with the same seed writes: results.csv, cases.csv, "
         + "curves.csv, report.md, run.json and figures/.",
-        "Every shard 1..N must be present, from the same experiment file (SHA-256), seed, tool version and N; "
+        "Every shard 1..N must be present, from the same experiment file (SHA-256), seed, tool version, build (jar "
+        + "SHA-256 and commit) and N; "
         + "the experiment file is read again from the path recorded in the shards, and its hash checked. "
         + "Otherwise one line names what is missing or mismatched, nothing is written, and the exit code is 2.",
         "Exit 0 when every comparison agrees or is consistent, 1 when any disagrees, 2 for bad input."})
