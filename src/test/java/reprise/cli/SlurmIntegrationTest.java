@@ -185,6 +185,19 @@ class SlurmIntegrationTest {
         assertEquals(0, status.code(), status.out() + status.err());
         assertTrue(status.out().contains(tasks + " shards: " + tasks + " done") && status.out().contains("next: nothing"),
             status.out());
+
+        // The tasks recorded their build; a shard from another build is refused by the merge in one line.
+        Path seven = out.resolve("shards").resolve("shard-7-of-" + tasks + ".json");
+        com.fasterxml.jackson.databind.node.ObjectNode o = (com.fasterxml.jackson.databind.node.ObjectNode)
+            Json.MAPPER.readTree(seven.toFile());
+        assertEquals(reprise.run.Build.current(), o.get("build").asText(), "the tasks ran this test's classes");
+        o.put("build", "jar-sha256 " + "0".repeat(64));
+        Files.writeString(seven, Json.MAPPER.writeValueAsString(o));
+        ShardsTest.Run mixed = ShardsTest.run("merge", out.toString(), "--force");
+        assertEquals(Main.BAD_INPUT, mixed.code(), mixed.err());
+        assertEquals(1, mixed.err().strip().lines().count(), mixed.err());
+        assertTrue(mixed.err().contains("shards from different builds: ") && mixed.err().contains("shard-7-of-64.json by "
+            + "jar-sha256 " + "0".repeat(64)), mixed.err());
     }
 
     /**
