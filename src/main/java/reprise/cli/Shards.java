@@ -82,7 +82,7 @@ final class Shards {
         }
         if (cmd.resume) {
             throw new IllegalArgumentException("--resume cannot be combined with " + (cmd.shard != null ? "--shard"
-                : "--merge") + ": a shard re-run replaces its own file");
+                : "--merge") + ": a shard re-run takes back its own checkpoint by itself");
         }
         List<String> args = cmd.spec.commandLine().getParseResult().originalArgs();
         if (cmd.merge != null) {
