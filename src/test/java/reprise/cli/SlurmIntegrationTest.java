@@ -53,7 +53,13 @@ class SlurmIntegrationTest {
             + " (start one with: bash scripts/slurm-local.sh start </dev/null)");
     }
 
+    /** Why Slurm was found unavailable, once per class, so that every test does not wait for squeue again. */
+    private static String unavailableBecause;
+
     static Map<String, String> slurmEnvironment() throws IOException {
+        if (unavailableBecause != null) {
+            unavailable(unavailableBecause);
+        }
         String conf = System.getenv("SLURM_CONF");
         if (conf == null && Files.isRegularFile(ENV_FILE)) {
             for (String line : Files.readAllLines(ENV_FILE)) {
@@ -71,7 +77,8 @@ class SlurmIntegrationTest {
         env.put("PATH", "/usr/bin:/usr/sbin:/bin:/sbin:" + env.getOrDefault("PATH", ""));
         Result q = exec(env, 15, "squeue", "-h");
         if (q.code() != 0) {
-            unavailable("squeue does not answer with SLURM_CONF=" + conf + ": " + q.out().strip());
+            unavailableBecause = "squeue does not answer with SLURM_CONF=" + conf + ": " + q.out().strip();
+            unavailable(unavailableBecause);
         }
         return env;
     }
