@@ -24,6 +24,7 @@ final class RunProgress implements RunListener {
     private long lastDraw;
     private volatile int saved;
     private Thread hook;
+    private String howToContinue = "run the same command with --resume to continue";
 
     RunProgress(PrintWriter err, boolean enabled, int cases, double expectedTotal) {
         this.err = err;
@@ -33,14 +34,26 @@ final class RunProgress implements RunListener {
         this.expectedTotal = expectedTotal;
     }
 
+    /**
+     * For a shard: a re-run of the same command continues it (shards take back their checkpoint by themselves).
+     *
+     * @return this
+     */
+    RunProgress forShard() {
+        howToContinue = "run the same command again to continue from them";
+        return this;
+    }
+
     @Override
     public void started(int unitsDone, int unitsTotal, boolean resumed, Path checkpoint) {
         if (resumed && enabled) {
             err.printf(Locale.ROOT, "reprise check: resuming, %d of %d units already done%n", unitsDone, unitsTotal);
+            err.flush();
         }
         saved = unitsDone;
+        String how = howToContinue;
         hook = new Thread(() -> err.printf(Locale.ROOT, "%nreprise check: interrupted; %d of %d units are saved in %s; "
-            + "run the same command with --resume to continue%n", saved, unitsTotal, checkpoint));
+            + "%s%n", saved, unitsTotal, checkpoint, how));
         Runtime.getRuntime().addShutdownHook(hook);
     }
 

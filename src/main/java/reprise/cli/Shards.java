@@ -82,11 +82,12 @@ final class Shards {
         }
         if (cmd.resume) {
             throw new IllegalArgumentException("--resume cannot be combined with " + (cmd.shard != null ? "--shard"
-                : "--merge") + ": a shard re-run replaces its own file");
+                : "--merge") + ": a shard re-run takes back its own checkpoint by itself");
         }
         List<String> args = cmd.spec.commandLine().getParseResult().originalArgs();
         if (cmd.merge != null) {
-            return merge(cmd.merge, cmd.file, cmd.out, cmd.force, args, cmd.spec.commandLine().getOut(),
+            return merge(cmd.merge, cmd.file, cmd.out, cmd.force, cmd.settings().threads(), args,
+                cmd.spec.commandLine().getOut(),
                 cmd.spec.commandLine().getErr(), "check");
         }
         int[] in = parse(cmd.shard, System.getenv());
@@ -100,15 +101,17 @@ final class Shards {
         if (job == null) {
             return Main.BAD_INPUT;
         }
-        RunProgress progress = new RunProgress(err, !cmd.quiet, job.cases().size(), ShardRun.expectedRounds(job, part));
+        RunProgress progress = new RunProgress(err, !cmd.quiet, job.cases().size(), ShardRun.expectedRounds(job, part))
+            .forShard();
         ShardRun.Written w;
         try {
             w = ShardRun.run(job, part, settings, progress);
         } finally {
             progress.finish();
         }
-        cmd.spec.commandLine().getOut().printf(Locale.ROOT, "%s: shard %d of %d, %d of %d units, %d rounds in %.1f s; "
-            + "wrote %s%n", job.experiment().name(), part.shard(), part.shards(), w.units(), w.unitsTotal(), w.rounds(),
+        cmd.spec.commandLine().getOut().printf(Locale.ROOT, "%s: shard %d of %d, %d of %d units%s, %d rounds in %.1f s; "
+            + "wrote %s%n", job.experiment().name(), part.shard(), part.shards(), w.units(), w.unitsTotal(),
+            w.resumed() > 0 ? " (" + w.resumed() + " taken back from the shard's checkpoint)" : "", w.rounds(),
             w.seconds(), w.file());
         return Main.OK;
     }
@@ -120,20 +123,22 @@ final class Shards {
      * @param file the experiment file, or null for the path recorded in the shards
      * @param out the output folder, or null for {@code dir}
      * @param force whether to replace a finished run in the output folder
+     * @param threads threads of the merge (cases joined and analysed, figures drawn, in parallel)
      * @param args the command line, for run.json
      * @param stdout data
      * @param err messages
      * @param command the command name for messages
      * @return the exit code
      */
-    static int merge(Path dir, Path file, Path out, boolean force, List<String> args, PrintWriter stdout,
+    static int merge(Path dir, Path file, Path out, boolean force, int threads, List<String> args, PrintWriter stdout,
         PrintWriter err, String command) {
         ShardSet shards = ShardSet.read(dir, Main.version());
         Job job = CheckCommand.load(file != null ? file : shards.identity().experimentFile(), 1, err, command);
         if (job == null) {
             return Main.BAD_INPUT;
         }
-        Finished finished = Merge.run(dir, shards, job, new RunSettings(out, 1, force, false, args, Main.version()));
+        Finished finished = Merge.run(dir, shards, job, new RunSettings(out, threads, force, false, args,
+            Main.version()));
         RunSummary.print(stdout, job.experiment(), finished);
         return finished.exitCode();
     }

@@ -18,8 +18,8 @@ import reprise.sim.SimulationResult;
  * uninterrupted run.
  *
  * <p>A checkpoint belongs to one part of a run ({@link Part#WHOLE} for an unsharded {@code check}); its
- * unit files record that part, so that checkpoints inside a shard can later live in a folder of their own
- * ({@link #of(Path, Part)} is where that folder would be chosen).
+ * unit files record that part and the build, and are taken back only by the same part and build. A
+ * shard's checkpoint lives in a folder of its own ({@link #in}, {@link ShardRun#checkpointFolder}).
  */
 public final class Checkpoint {
 
@@ -56,6 +56,17 @@ public final class Checkpoint {
         return new Checkpoint(outputFolder.resolve(FOLDER), part);
     }
 
+    /**
+     * The checkpoint of one part of a run in a folder of its own (a shard's checkpoint).
+     *
+     * @param folder the checkpoint folder
+     * @param part the part of the run
+     * @return the checkpoint
+     */
+    static Checkpoint in(Path folder, Part part) {
+        return new Checkpoint(folder, part);
+    }
+
     /** @return the folder */
     public Path folder() {
         return dir;
@@ -89,7 +100,7 @@ public final class Checkpoint {
     }
 
     /**
-     * Loads every finished unit, checking that each belongs to this experiment, seed and tool version.
+     * Loads every finished unit, checking that each belongs to this experiment, seed, tool version and build.
      *
      * @param run the run's identity
      * @param units the experiment's units
@@ -154,6 +165,9 @@ public final class Checkpoint {
         }
         if (!run.toolVersion().equals(saved.toolVersion())) {
             return "tool version " + saved.toolVersion() + ", now " + run.toolVersion();
+        }
+        if (h.build() != null && !h.build().equals(Build.current())) {
+            return "build " + h.build() + ", now " + Build.current();
         }
         if (!h.part().equals(part)) {
             return "shard " + h.part().shard() + " of " + h.part().shards() + ", now " + part.shard() + " of "

@@ -43,9 +43,17 @@ public record Job(Path file, Experiment experiment, List<Case> cases, Map<Intege
         return new Job(file, e, cases, claims);
     }
 
-    /** @return the experiment's units of work */
+    /** @return the experiment's units of work, cut for an unsharded run */
     public List<WorkPlan.Unit> units() {
         return WorkPlan.units(experiment, cases);
+    }
+
+    /**
+     * @param shards the number of shards of the run
+     * @return the experiment's units of work, cut for that many shards ({@link WorkPlan#units(Experiment, List, int)})
+     */
+    public List<WorkPlan.Unit> units(int shards) {
+        return WorkPlan.units(experiment, cases, shards);
     }
 
     /**

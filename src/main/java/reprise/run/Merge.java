@@ -29,8 +29,9 @@ public final class Merge {
      * @param shards its shard set, read by {@link ShardSet#read}
      * @param job the experiment, read from the file the shards record ({@link ShardSet#identity()}) or from
      *     a file given instead
-     * @param settings the output folder (null for {@code dir}), {@code force}, the command line and tool version
-     *     (its threads are not used: run.json records the most threads a shard used)
+     * @param settings the output folder (null for {@code dir}), {@code force}, the command line, tool version and
+     *     the threads of the merge (cases are joined and analysed, and figures drawn, on that many threads; run.json
+     *     records the most threads a shard used)
      * @return the finished run
      * @throws IllegalArgumentException one line, if the shards do not belong to this experiment or the
      *     output folder does not allow the run
@@ -38,13 +39,14 @@ public final class Merge {
     public static Finished run(Path dir, ShardSet shards, Job job, RunSettings settings) {
         Instant start = Instant.now();
         checkExperiment(job, shards.identity());
-        List<WorkPlan.Unit> units = job.units();
+        List<WorkPlan.Unit> units = job.units(shards.shards());
         Map<WorkPlan.Unit, SimulationResult> tallies = shards.tallies(units);
         Path target = settings.out() != null ? settings.out() : dir;
         OutputFolder.Lock lock = OutputFolder.open(settings.out() != null ? "--out" : "merge", target,
             settings.force(), false, null);
         try {
-            List<CaseResult> results = Outputs.byCase(job, units, (c, u) -> tallies.get(u), RunListener.SILENT);
+            List<CaseResult> results = Outputs.byCaseInParallel(job, units, (c, u) -> tallies.get(u),
+                settings.threads());
             Finished finished = new Finished(results, Runner.analyse(job.experiment(), results, job.claims()), target);
             Outputs.write(target, job, settings, finished, start, shards.threads());
             return finished;

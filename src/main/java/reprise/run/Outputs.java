@@ -3,7 +3,16 @@ package reprise.run;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.function.IntFunction;
 import reprise.experiment.Case;
 import reprise.experiment.CaseResult;
 import reprise.experiment.Curves;
@@ -66,14 +75,90 @@ final class Outputs {
     }
 
     /**
-     * Writes curves.csv, figures/, results.csv, cases.csv, report.md and run.json.
+     * Joins the unit tallies of every case with the case's exact side on several threads, case by case
+     * (the exact side, the simulation summary and the per-case statistics of one case do not depend on
+     * another's), so a merge's cost is the work per case divided by the threads. The results are those of
+     * {@link #byCase}, in case order.
+     *
+     * @param job the job
+     * @param units all its units
+     * @param source the tallies of each unit (read concurrently)
+     * @param threads worker threads, at least 1
+     * @return the case results, in case order
+     */
+    static List<CaseResult> byCaseInParallel(Job job, List<WorkPlan.Unit> units, UnitSource source, int threads) {
+        Map<Integer, List<WorkPlan.Unit>> byCase = new HashMap<>();
+        for (WorkPlan.Unit u : units) {
+            byCase.computeIfAbsent(u.caseIndex(), k -> new ArrayList<>()).add(u);
+        }
+        List<Case> cases = job.cases();
+        return inParallel(cases.size(), threads, i -> {
+            Case c = cases.get(i);
+            SimulationResult merged = null;
+            for (WorkPlan.Unit u : byCase.getOrDefault(c.index(), List.of())) {
+                SimulationResult r = source.tally(c, u);
+                merged = merged == null ? r : merged.merge(r);
+            }
+            return Runner.fromSimulation(job.experiment(), c, merged);
+        });
+    }
+
+    /**
+     * Computes f(0), ..., f(n - 1) on up to {@code threads} threads and returns them in order; the first
+     * exception thrown by f is rethrown (unchecked exceptions and errors as they are).
+     */
+    static <T> List<T> inParallel(int n, int threads, IntFunction<T> f) {
+        int workers = Math.max(1, Math.min(threads, n));
+        List<T> out = new ArrayList<>(Collections.nCopies(n, null));
+        if (workers == 1) {
+            for (int i = 0; i < n; i++) {
+                out.set(i, f.apply(i));
+            }
+            return out;
+        }
+        ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
+            Thread t = new Thread(r, "reprise-merge");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            List<Future<T>> futures = new ArrayList<>();
+            for (int i = 0; i < n; i++) {
+                int k = i;
+                futures.add(pool.submit(() -> f.apply(k)));
+            }
+            for (int i = 0; i < n; i++) {
+                out.set(i, futures.get(i).get());
+            }
+            return out;
+        } catch (InterruptedException ex) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted", ex);
+        } catch (ExecutionException ex) {
+            Throwable cause = ex.getCause();
+            if (cause instanceof RuntimeException re) {
+                throw re;
+            }
+            if (cause instanceof Error er) {
+                throw er;
+            }
+            throw new IllegalStateException(cause);
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    /**
+     * Writes curves.csv, figures/, results.csv, cases.csv, report.md and run.json; {@link Plotter#draw}
+     * draws independent figures in parallel itself (it needs all points at once: one colour range for the
+     * heatmaps, unique names, one manifest).
      *
      * @param dir the output folder
      * @param job the job
      * @param settings the run's settings (command line, tool version)
      * @param finished the results
      * @param start when the run started
-     * @param nThreads worker threads
+     * @param nThreads worker threads of the simulation (recorded in run.json)
      */
     static void write(Path dir, Job job, RunSettings settings, Finished finished, Instant start, int nThreads) {
         Experiment e = job.experiment();

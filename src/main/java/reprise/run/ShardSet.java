@@ -16,7 +16,7 @@ import reprise.sim.SimulationResult;
 /**
  * The shard files of one sharded run, read from {@code DIR/shards/} and checked to be complete and to
  * belong together: shards 1..N all present, each once, all cut into the same N, from the same experiment
- * file, seed, claims file and tool version. Every refusal is one line naming the folder or file.
+ * file, seed, claims file, tool version and build ({@link Build}). Every refusal is one line naming the folder or file.
  *
  * <p>A set is read before the experiment file, whose path it records ({@link #identity()}); {@link Merge}
  * then checks the file against it.
@@ -85,6 +85,16 @@ public final class ShardSet {
         return first.run();
     }
 
+    /** @return N, the number of shards of the run */
+    public int shards() {
+        return first.part().shards();
+    }
+
+    /** @return the build that simulated the shards, or null if their files do not say */
+    public String build() {
+        return first.build();
+    }
+
     /** @return the largest number of threads a shard used */
     int threads() {
         return byShard.values().stream().mapToInt(c -> c.header().threads()).max().orElse(1);
@@ -135,6 +145,11 @@ public final class ShardSet {
         mismatch(folder, "tool version", a.toolVersion(), b.toolVersion(), firstName, name);
         mismatch(folder, "claims file SHA-256", String.valueOf(a.claimsSha256()), String.valueOf(b.claimsSha256()),
             firstName, name);
+        if (!Objects.equals(first.build(), h.build())) {
+            throw new IllegalArgumentException(folder + ": shards from different builds: " + firstName + " was simulated "
+                + "by build " + first.build() + ", " + name + " by " + h.build() + "; re-run the shards of one build "
+                + "(check FILE --shard I/N with the same jar)");
+        }
     }
 
     private static void mismatch(Path folder, String what, String a, String b, String nameA, String nameB) {

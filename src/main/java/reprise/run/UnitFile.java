@@ -28,7 +28,9 @@ import reprise.sim.TallyFile;
  * ({@link RunIdentity}): {@code experiment_file}, {@code experiment_sha256}, {@code claims_file} and
  * {@code claims_sha256} (null without claims), {@code seed}, {@code tool_version}; the part
  * ({@link Part}): {@code shard} (I, from 1) and {@code shards} (N); {@code units_total} (units of the
- * whole experiment), {@code threads}, {@code seconds} (simulation wall time, NaN if unknown) and
+ * whole experiment), {@code threads}, {@code seconds} (simulation wall time, NaN if unknown),
+ * {@code build} (the jar's or class folder's SHA-256 and the git commit, {@link Build}; absent in files
+ * written before it was recorded) and
  * {@code units}: one object per unit, in plan order, with {@code case_index}, {@code chunk}, {@code from},
  * {@code to} (game indexes, {@code to} exclusive) and {@code tally} (the simulator's exact tally object,
  * {@link TallyFile}).
@@ -61,8 +63,22 @@ public final class UnitFile {
      * @param unitsTotal the number of units of the whole experiment
      * @param threads worker threads used
      * @param seconds simulation wall time, NaN if unknown
+     * @param build the build that simulated the tallies ({@link Build#current()}), null if the file does not say
      */
-    public record Header(RunIdentity run, Part part, int unitsTotal, int threads, double seconds) {
+    public record Header(RunIdentity run, Part part, int unitsTotal, int threads, double seconds, String build) {
+
+        /**
+         * A header of tallies simulated by this process's build.
+         *
+         * @param run the run's identity
+         * @param part the part of the run
+         * @param unitsTotal the number of units of the whole experiment
+         * @param threads worker threads used
+         * @param seconds simulation wall time, NaN if unknown
+         */
+        public Header(RunIdentity run, Part part, int unitsTotal, int threads, double seconds) {
+            this(run, part, unitsTotal, threads, seconds, Build.current());
+        }
     }
 
     /**
@@ -136,6 +152,7 @@ public final class UnitFile {
         o.put("units_total", h.unitsTotal());
         o.put("threads", h.threads());
         o.put("seconds", h.seconds());
+        putNullable(o, "build", h.build());
         ArrayNode units = o.putArray("units");
         for (UnitTally u : content.units()) {
             ObjectNode n = units.addObject();
@@ -231,7 +248,7 @@ public final class UnitFile {
         JsonNode seconds = o.get("seconds");
         return new Header(id, new Part((int) whole(o, "shard", 1, Integer.MAX_VALUE), (int) whole(o, "shards", 1, Integer.MAX_VALUE)),
             (int) whole(o, "units_total", 1, Integer.MAX_VALUE), threads, seconds != null && seconds.isNumber() ? seconds.asDouble()
-            : Double.NaN);
+            : Double.NaN, o.hasNonNull("build") ? text(o, "build") : null);
     }
 
     private static List<UnitTally> units(JsonNode o) {

@@ -42,18 +42,54 @@ public final class WorkPlan {
     }
 
     /**
-     * All units of an experiment, case by case, chunk by chunk.
+     * All units of an experiment, case by case, chunk by chunk, in the cut of an unsharded run.
      *
      * @param e the experiment
      * @param cases its cases
      * @return the units
      */
     public static List<Unit> units(Experiment e, List<Case> cases) {
+        return units(e, cases, 1);
+    }
+
+    /**
+     * All units of an experiment cut for a run of n shards. With n no larger than the units of the
+     * unsharded cut ({@link #units(Experiment, List)}) and no unit of that cut above the mean shard R / n,
+     * that cut; otherwise (too few units, or one so large that its shard would be the run's bottleneck)
+     * the cap on a unit's rounds becomes R / (2n), R the experiment's expected rounds, so that there are at least 2n units (unless a
+     * case has fewer games than its share, or 2n exceeds {@link #MOST_UNITS}) and every shard gets work, with the largest shard at most
+     * about 1.5 times the mean (the bound of largest-first assignment when no unit exceeds half the mean).
+     * Any cut gives bit-identical merged numbers, since a unit is only a range of game indexes.
+     *
+     * @param e the experiment
+     * @param cases its cases
+     * @param shards n, at least 1
+     * @return the units
+     */
+    public static List<Unit> units(Experiment e, List<Case> cases, int shards) {
+        List<Unit> base = cut(e, cases, ROUNDS_PER_UNIT);
+        double total = base.stream().mapToDouble(Unit::expectedRounds).sum();
+        double largest = base.stream().mapToDouble(Unit::expectedRounds).max().orElse(0);
+        if (shards <= base.size() && largest <= total / shards || base.size() >= MOST_UNITS) {
+            return base;
+        }
+        double cap = total / (2.0 * Math.min(shards, MOST_UNITS / 2));
+        return cut(e, cases, Math.min(ROUNDS_PER_UNIT, cap));
+    }
+
+    /**
+     * The most units a finer cut aims at (it may exceed this by at most one unit per case), since a merge
+     * holds every unit's tallies in memory: a run of more than half this many shards is cut into about this
+     * many units, and shards beyond the units get no work.
+     */
+    public static final int MOST_UNITS = 100_000;
+
+    private static List<Unit> cut(Experiment e, List<Case> cases, double roundsPerUnit) {
         List<Unit> out = new ArrayList<>();
         long g = e.replicates();
         for (Case c : cases) {
             double perGame = c.horizon().expectedLength();
-            long chunks = (long) Math.min(g, Math.max(1, Math.ceil(g * perGame / ROUNDS_PER_UNIT)));
+            long chunks = (long) Math.min(g, Math.max(1, Math.ceil(g * perGame / roundsPerUnit)));
             for (int k = 0; k < chunks; k++) {
                 long from = g * k / chunks;
                 long to = g * (k + 1) / chunks;

@@ -132,6 +132,14 @@ public final class Simulator {
         return spec;
     }
 
+    /**
+     * @return the approximate heap bytes of one tally of this run (one worker's, or one finished unit's),
+     *     the figure the memory check of the constructor multiplies by the workers
+     */
+    public long tallyBytes() {
+        return Accumulator.estimateBytes(historyMemory, spec.snapshotRounds().length, spec.timeResolvedRounds());
+    }
+
     /** @return whether the fused memory-one path will be used */
     public boolean usesFastPath() {
         return fast;

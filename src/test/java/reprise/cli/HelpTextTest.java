@@ -17,7 +17,7 @@ import org.junit.jupiter.params.provider.ValueSource;
  */
 class HelpTextTest {
     @ParameterizedTest
-    @ValueSource(strings = {"check", "merge", "slurm-script", "solve", "simulate", "plan", "calibrate", "plot"})
+    @ValueSource(strings = {"check", "merge", "slurm-script", "status", "solve", "simulate", "plan", "calibrate", "plot"})
     void helpRendersWithoutFormatWarnings(String command) {
         PrintStream saved = System.err;
         ByteArrayOutputStream captured = new ByteArrayOutputStream();

@@ -169,20 +169,37 @@ class ShardsTest {
     }
 
     @Test
-    void emptyShardsWriteAFileAndRerunsReplaceTheirOwn() throws IOException {
-        Path dir = shardAll(tmp.resolve("empty"), 7);
-        ObjectNode s7 = (ObjectNode) Json.MAPPER.readTree(dir.resolve("shards/shard-7-of-7.json").toFile());
-        assertEquals(0, s7.get("units").size(), "4 units over 7 shards leave shard 7 empty");
-        assertEquals(4, s7.get("units_total").asInt());
-        assertEquals(7, s7.get("shards").asInt());
+    void moreShardsThanUnitsCutUnitsFinerAndRerunsReplaceTheirOwn() throws IOException {
+        Path dir = shardAll(tmp.resolve("finer"), 7);
+        for (int i = 1; i <= 7; i++) {
+            ObjectNode s = (ObjectNode) Json.MAPPER.readTree(dir.resolve("shards/shard-" + i + "-of-7.json").toFile());
+            assertTrue(s.get("units").size() >= 1, "4 units cut finer for 7 shards leave shard " + i + " without work");
+            assertTrue(s.get("units_total").asInt() >= 14, "at least 2N units: " + s.get("units_total"));
+            assertEquals(7, s.get("shards").asInt());
+        }
         Path one = dir.resolve("shards/shard-1-of-7.json");
+        int unitsOfOne = Json.MAPPER.readTree(one.toFile()).get("units").size();
         Files.writeString(one, "not json");
         Run r = run("check", experiment.toString(), "--shard", "1/7", "--out", dir.toString(), "--quiet");
         assertEquals(0, r.code(), r.err());
         try (Stream<Path> files = Files.list(dir.resolve("shards"))) {
-            assertEquals(7, files.count(), "a re-run replaces its file and leaves no temporary file");
+            assertEquals(7, files.count(), "a re-run replaces its file and leaves no temporary file or checkpoint");
         }
-        assertEquals(1, Json.MAPPER.readTree(one.toFile()).get("units").size());
+        assertEquals(unitsOfOne, Json.MAPPER.readTree(one.toFile()).get("units").size());
+    }
+
+    @Test
+    void shardsBeyondTheGamesStayEmptyButWriteAFile() throws IOException {
+        Path tiny = tmp.resolve("tiny.yaml");
+        Files.writeString(tiny, SMALL.replace("replicates: 300", "replicates: 2"));
+        Path dir = tmp.resolve("tiny");
+        for (int i = 1; i <= 9; i++) {
+            Run r = run("check", tiny.toString(), "--shard", i + "/9", "--out", dir.toString(), "--quiet");
+            assertEquals(0, r.code(), r.err());
+        }
+        ObjectNode s9 = (ObjectNode) Json.MAPPER.readTree(dir.resolve("shards/shard-9-of-9.json").toFile());
+        assertEquals(0, s9.get("units").size(), "4 cases of 2 games are at most 8 units: shard 9 of 9 is empty");
+        assertEquals(8, s9.get("units_total").asInt());
     }
 
     @ParameterizedTest
@@ -347,42 +364,85 @@ class ShardsTest {
     }
 
     /**
-     * The estimate of the class comment: 1e12 rounds at 5e7 rounds/s need ceil(1e12 / 1.8e11) = 6 cpus and
-     * 3 * 1e12 / 3e8 + 60 = 10060 s, rounded up to 10080 s; heap 256 + 6 * 64 = 640 MB, mem 896 MB. A tiny
-     * shard gets the minima: 1 cpu, 5 minutes (computed by hand from the documented rule).
+     * The estimates of the class comment, computed by hand from the documented rules. 1e12 rounds at 5e7
+     * rounds/s need ceil(1e12 / 1.8e11) = 6 cpus and 3 * 1e12 / 3e8 + 60 = 10060 s, rounded up to 10080 s;
+     * with 1 MiB tallies and 10 units, heap 128 + 6 * 16 + (6 + 1 + 30) * 1 = 261 MB, rounded up to 320 MB,
+     * mem 320 + 192 = 512 MB. A tiny shard gets the minima: 1 cpu, 5 minutes, heap 128 + 16 + 5 * 4096 B,
+     * rounded up to 192 MB. With 100 MiB tallies the sum 128 + 16 + 5 * 100 = 644 MB is above the simulator's
+     * floor 2 * 2 * 100 = 400 MB: 704 MB. A merge of 18 cases and 20 units at 0.5 s per case: 8 cpus, 60 + 3 *
+     * (18 * 0.5 / 8 + 0.02) = 63.4 s, raised to 5 minutes; heap 256 + 8 * 64 + 3 * 20 * 1 = 828 MB, 832 MB.
      */
     @Test
     void resourceEstimate() {
-        assertEquals(new SlurmScriptCommand.Estimate(6, 10080, 640, 896), SlurmScriptCommand.estimate(1e12, 5e7));
-        assertEquals(new SlurmScriptCommand.Estimate(1, 300, 320, 576), SlurmScriptCommand.estimate(1e6, 5e7));
-        assertEquals(8, SlurmScriptCommand.estimate(1e15, 5e7).cpus(), "capped");
+        long mib = 1024 * 1024;
+        assertEquals(new SlurmScriptCommand.Estimate(6, 10080, 320, 512), SlurmScriptCommand.estimate(1e12, 5e7, mib,
+            10));
+        assertEquals(new SlurmScriptCommand.Estimate(1, 300, 192, 384), SlurmScriptCommand.estimate(1e6, 5e7, 4096, 1));
+        assertEquals(new SlurmScriptCommand.Estimate(1, 300, 704, 896), SlurmScriptCommand.estimate(1e6, 5e7,
+            100 * mib, 1));
+        assertEquals(8, SlurmScriptCommand.estimate(1e15, 5e7, 0, 1).cpus(), "capped");
+        assertEquals(new SlurmScriptCommand.Estimate(8, 300, 832, 1024), SlurmScriptCommand.mergeEstimate(18, 20, 0.5,
+            mib, 8));
+    }
+
+    @Test
+    void maxArraySizeIsReadFromTheConfiguration() {
+        assertEquals(java.util.OptionalLong.of(10001), SlurmScriptCommand.parseMaxArraySize(
+            "Configuration data as of 2026-01-01T00:00:00\nMaxArraySize            = 10001\nMaxJobCount = 10000\n"));
+        assertTrue(SlurmScriptCommand.parseMaxArraySize("MaxJobCount = 10000\n").isEmpty());
     }
 
     @Test
     void jobScriptIsValidBash() throws Exception {
         Path script = tmp.resolve("job.sh");
         Run r = run("slurm-script", experiment.toString(), "--tasks", "4", "--out", tmp.resolve("cluster").toString(),
-            "--partition", "short", "--jar", "/opt/reprise.jar", "--script", script.toString());
+            "--partition", "short", "--account", "proj-7", "--qos", "low", "--constraint", "avx2&ib", "--clusters",
+            "c1", "--sbatch=--mail-type=FAIL", "--setup", "module load java/17", "--throttle", "2", "--rate", "5e7",
+            "--jar", "/opt/reprise.jar", "--script", script.toString());
         assertEquals(0, r.code(), r.err());
         String text = Files.readString(script, StandardCharsets.UTF_8);
-        for (String line : List.of("#SBATCH --array=1-4", "#SBATCH --cpus-per-task=1", "#SBATCH --time=0:05:00",
-            "#SBATCH --mem=576M", "#SBATCH --partition=short", "--dependency=afterok:\"$array\"",
-            "--shard \"$SLURM_ARRAY_TASK_ID/4\"", "'/opt/reprise.jar'")) {
+        for (String line : List.of("#SBATCH --array=1-4%2", "#SBATCH --cpus-per-task=1", "#SBATCH --time=0:05:00",
+            "#SBATCH --mem=384M", "#SBATCH --partition=short", "#SBATCH --account=proj-7", "#SBATCH --qos=low",
+            "#SBATCH --constraint=avx2&ib", "#SBATCH --clusters=c1", "#SBATCH --mail-type=FAIL",
+            "site=('--partition=short' '--account=proj-7' '--qos=low' '--constraint=avx2&ib' '--clusters=c1' "
+                + "'--mail-type=FAIL')", "--dependency=afterok:\"$array\"", "\"${site[@]}\" --output=",
+            "  module load java/17\n", "--shard \"$SLURM_ARRAY_TASK_ID/4\"", "'/opt/reprise.jar'",
+            "merge --force --threads 4".replace("merge --force", "merge '" + tmp.resolve("cluster") + "' --force"))) {
             assertTrue(text.contains(line), line + " in\n" + text);
         }
+        assertFalse(text.contains("$0\") --merge") || text.contains("--wrap"), "the merge job must not run this script");
         Process p = new ProcessBuilder("bash", "-n", script.toString()).redirectErrorStream(true).start();
         String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
         assertEquals(0, p.waitFor(), out);
     }
 
+    @Test
+    void moreTasksThanUnitsOrTheArrayLimitAreWarnedOf() {
+        Path tiny = tmp.resolve("few-games.yaml");
+        try {
+            Files.writeString(tiny, SMALL.replace("replicates: 300", "replicates: 2"));
+        } catch (IOException ex) {
+            throw new java.io.UncheckedIOException(ex);
+        }
+        Run r = run("slurm-script", tiny.toString(), "--tasks", "20000", "--rate", "5e7", "--jar", "/opt/reprise.jar");
+        assertEquals(0, r.code(), r.err());
+        assertTrue(r.err().contains("warning: 20000 tasks but only 8 units (the experiment has 8 games in all): tasks 9 "
+            + "to 20000 will do no work; ask for --tasks 8 at most"), r.err());
+        assertTrue(r.err().contains("exceed this cluster's array limit (MaxArraySize="), r.err());
+        assertTrue(r.err().contains("consider --throttle K"), r.err());
+        assertTrue(r.out().contains("#   WARNING: 20000 tasks but only 8 units"), r.out());
+    }
+
     @ParameterizedTest
-    @ValueSource(strings = {"--tasks=0", "--rate=0", "--partition=a b"})
+    @ValueSource(strings = {"--tasks=0", "--rate=0", "--partition=a b", "--account=x'y", "--throttle=0",
+        "--setup=a\nb", "--sbatch=--array=1-3", "--sbatch=-x"})
     void jobScriptErrors(String option) {
         Run r = option.startsWith("--tasks") ? run("slurm-script", experiment.toString(), option, "--jar", "/opt/r.jar")
             : run("slurm-script", experiment.toString(), "--tasks", "2", option, "--jar", "/opt/reprise.jar");
         assertEquals(2, r.code(), r.err());
         assertEquals("", r.out());
-        assertTrue(r.err().startsWith("reprise slurm-script: --" + option.substring(2, option.indexOf('='))), r.err());
+        String name = option.startsWith("--sbatch") ? "sbatch" : option.substring(2, option.indexOf('='));
+        assertTrue(r.err().startsWith("reprise slurm-script: --" + name), r.err());
     }
 
     static void copy(Path from, Path to) throws IOException {
