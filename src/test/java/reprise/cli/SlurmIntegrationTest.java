@@ -199,6 +199,7 @@ class SlurmIntegrationTest {
             Json.MAPPER.readTree(seven.toFile());
         assertEquals(reprise.run.Build.current(), o.get("build").asText(), "the tasks ran this test's classes");
         o.put("build", "jar-sha256 " + "0".repeat(64));
+        o.put("sha256", reprise.run.UnitFile.checksum(o)); // a shard of another build, not an edited one
         Files.writeString(seven, Json.MAPPER.writeValueAsString(o));
         ShardsTest.Run mixed = ShardsTest.run("merge", out.toString(), "--force");
         assertEquals(Main.BAD_INPUT, mixed.code(), mixed.err());
