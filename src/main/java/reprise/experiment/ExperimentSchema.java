@@ -23,7 +23,7 @@ import reprise.game.StageGame;
 final class ExperimentSchema {
 
     /** The top-level keys, in the order README lists them. */
-    static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "pairs", "grid", "replicates",
+    static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "pairs", "strategy_set", "grid", "replicates",
         "seed", "alpha", "tolerance", "burn_in", "snapshots", "quantities", "tests", "correction", "claims", "output");
     static final List<String> GRID_KEYS = List.of("noise", "misperception", "rounds", "continuation", "parameters");
     static final List<String> PAIR_KEYS = List.of("name", "x", "y");
@@ -60,7 +60,10 @@ final class ExperimentSchema {
         s.name();
         s.game();
         s.grid();
-        s.builder.pairs = pairs(s.top.get("pairs"), problems);
+        s.builder.strategySet = StrategySetSection.read(s.top.get("strategy_set"), problems);
+        if (s.top.containsKey("pairs") || !s.top.containsKey("strategy_set")) {
+            s.builder.pairs = pairs(s.top.get("pairs"), problems);
+        }
         s.numbers();
         s.snapshots();
         s.comparisons();
@@ -223,7 +226,7 @@ final class ExperimentSchema {
     private static List<Experiment.Pair> pairs(Node node, Problems problems) {
         List<Experiment.Pair> pairs = new ArrayList<>();
         if (node == null) {
-            problems.add(0, "pairs", "is required: a list of {name, x, y}");
+            problems.add(0, "pairs", "is required: a list of {name, x, y} (or a strategy_set:)");
             return pairs;
         }
         if (!(node instanceof SequenceNode seq) || seq.getValue().isEmpty()) {
