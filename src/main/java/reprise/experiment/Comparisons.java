@@ -41,8 +41,20 @@ public final class Comparisons {
      * @param equivalenceP the TOST p-value, or NaN when the row has no margin
      * @param margin whether the row's verdict uses the tolerance
      * @param counts whether the row can make the experiment disagree (everything but stationary rows)
+     * @param tolerance the margin h the row's verdict uses, or NaN for the experiment's {@code tolerance}
      */
-    record Pending(ResultRow row, double equivalenceP, boolean margin, boolean counts) {
+    record Pending(ResultRow row, double equivalenceP, boolean margin, boolean counts, double tolerance) {
+        /**
+         * A row whose verdict uses the experiment's tolerance.
+         *
+         * @param row the row
+         * @param equivalenceP the TOST p-value or NaN
+         * @param margin whether the verdict uses the tolerance
+         * @param counts whether the row can make the experiment disagree
+         */
+        Pending(ResultRow row, double equivalenceP, boolean margin, boolean counts) {
+            this(row, equivalenceP, margin, counts, Double.NaN);
+        }
     }
 
     /** What every comparison of one case needs. */
@@ -59,14 +71,16 @@ public final class Comparisons {
             return q.weights(r.c().match().game());
         }
 
-        /** The quantities the experiment reports: today the base quantities of its groups; derived ones join here. */
+        /**
+         * The quantities of the form w . N / L the experiment reports: the base quantities of its groups,
+         * then its derived combinations (derived ratios have rows of their own, {@link RatioRows}).
+         */
         List<Quantity> reported() {
-            return List.<Quantity>of(BaseQuantity.values()).stream()
-                .filter(q -> e.quantities().contains(q.group())).toList();
+            return Quantities.reported(e).stream().filter(q -> !Quantities.isRatio(q)).toList();
         }
     }
 
-    static List<Pending> rows(Experiment e, CaseResult r, Map<BaseQuantity, Claims.Claim> claims) {
+    static List<Pending> rows(Experiment e, CaseResult r, Map<? extends Quantity, Claims.Claim> claims) {
         List<Pending> out = new ArrayList<>();
         Context x = new Context(e, r, CaseAnalysis.summary(r.simulation()));
         boolean enoughGames = x.summary().games() >= 2;
@@ -76,6 +90,7 @@ public final class Comparisons {
                 out.add(test(x.c(), Subject.Joint.STATES, ComparisonKind.EXACT,
                     tests.get(TestId.Standard.FREQUENCIES_WALD), "Wald test, exact covariance"));
                 x.reported().forEach(q -> out.add(exactQuantity(x, q)));
+                out.addAll(RatioRows.exact(e, r, x.summary()));
             }
             if (e.tests().contains(Experiment.Comparison.TRANSITIONS)) {
                 transitions(x, tests, out);
@@ -85,10 +100,17 @@ public final class Comparisons {
             }
             if (e.tests().contains(Experiment.Comparison.STATIONARY) && r.exact().prediction().stationary() != null) {
                 x.reported().forEach(q -> out.add(stationary(x, q)));
+                out.addAll(RatioRows.stationary(e, r, x.summary()));
             }
         }
         if (claims != null && enoughGames) {
-            claims.forEach((q, claim) -> claim(x, q, claim, out));
+            claims.forEach((q, claim) -> {
+                if (Quantities.isRatio(q) || claim.longRun()) {
+                    out.addAll(RatioRows.claim(e, r, x.summary(), q, claim));
+                } else {
+                    claim(x, q, claim, out);
+                }
+            });
             if (r.exact() == null && claims.keySet().containsAll(BaseQuantity.STATES)) {
                 out.add(claimedStates(x, claims));
             }
@@ -102,9 +124,9 @@ public final class Comparisons {
 
     /** A quantity against its exact expectation: z-test with the exact standard error, TOST for agreement. */
     private static Pending exactQuantity(Context x, Quantity q) {
-        double h = x.e().tolerance();
         double alpha = x.e().alpha();
         double[] w = x.weights(q);
+        double h = Tolerance.of(x.e(), q).margin(x.exact().value(w));
         Estimate est = ReplicateInference.mean(x.summary(), w);
         TestResult z = CaseAnalysis.zTest(x.exact(), est, w);
         Equivalence.Result eq = Equivalence.assess(est, x.exact().value(w), h, alpha);
@@ -113,7 +135,7 @@ public final class Comparisons {
             .note("z-test with exact standard error " + fmt(x.exact().standardError(w, est.replicates()))
                 + "; TOST within +-" + fmt(h) + " p = " + fmt(eq.equivalencePValue()))
             .build();
-        return new Pending(row, eq.equivalencePValue(), true, true);
+        return new Pending(row, eq.equivalencePValue(), true, true, h);
     }
 
     private static void transitions(Context x, Map<TestId, TestResult> tests, List<Pending> out) {
@@ -138,11 +160,11 @@ public final class Comparisons {
      * finite-horizon bias beside the sampling error (descriptive).
      */
     private static Pending stationary(Context x, Quantity q) {
-        double h = x.e().tolerance();
         double alpha = x.e().alpha();
         double[] w = x.weights(q);
         Estimate est = ReplicateInference.mean(x.summary(), w);
         double target = CaseAnalysis.dot(w, x.exact().prediction().stationary());
+        double h = Tolerance.of(x.e(), q).margin(target);
         Equivalence.Result eq = Equivalence.assess(est, target, h, alpha);
         Equivalence.BiasReport bias = Equivalence.biasReport(x.exact().value(w), target, est);
         Verdict v = switch (eq.verdict()) {
@@ -162,14 +184,14 @@ public final class Comparisons {
         ResultRow row = ResultRow.builder(x.c(), q, ComparisonKind.STATIONARY).predicted(target).observed(est.value())
             .interval(est.interval(1 - alpha)).test(Double.NaN, Double.NaN, eq.differencePValue()).verdict(v)
             .note(why + more).build();
-        return new Pending(row, eq.equivalencePValue(), true, false);
+        return new Pending(row, eq.equivalencePValue(), true, false, h);
     }
 
     /** A claimed value against the simulation (t-test and TOST) and against the exact expectation. */
-    private static void claim(Context x, BaseQuantity q, Claims.Claim claim, List<Pending> out) {
-        double h = x.e().tolerance();
+    private static void claim(Context x, Quantity q, Claims.Claim claim, List<Pending> out) {
         double alpha = x.e().alpha();
         double claimed = claim.value();
+        double h = claim.tolerance(x.e(), q).margin(claimed);
         double[] w = x.weights(q);
         Estimate est = ReplicateInference.mean(x.summary(), w);
         Equivalence.Result eq = Equivalence.assess(est, claimed, h, alpha);
@@ -178,7 +200,7 @@ public final class Comparisons {
             .test((est.value() - claimed) / est.standardError(), est.degreesOfFreedom(), eq.differencePValue())
             .note("claim from line " + claim.line() + "; t-test with replicate standard error; TOST within +-"
                 + fmt(h) + " p = " + fmt(eq.equivalencePValue()))
-            .build(), eq.equivalencePValue(), true, true));
+            .build(), eq.equivalencePValue(), true, true, h));
         if (x.exact() != null) {
             double exact = x.exact().value(w);
             Verdict v = Math.abs(exact - claimed) <= h ? Verdict.AGREES : Verdict.DISAGREES;
@@ -190,7 +212,7 @@ public final class Comparisons {
     }
 
     /** All four claimed state frequencies against the simulation, when there is no exact covariance. */
-    private static Pending claimedStates(Context x, Map<BaseQuantity, Claims.Claim> claims) {
+    private static Pending claimedStates(Context x, Map<? extends Quantity, Claims.Claim> claims) {
         double[] f = new double[4];
         for (int s = 0; s < 4; s++) {
             f[s] = claims.get(BaseQuantity.STATES.get(s)).value();

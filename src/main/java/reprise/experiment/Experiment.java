@@ -44,12 +44,15 @@ import reprise.game.StageGame;
  * @param claims the claims file, or null
  * @param output the output folder
  * @param strategySet the strategy set whose matches are among the pairs, or null
+ * @param derived the derived quantities, in file order (names unique, none a base quantity's)
+ * @param tolerances margins by quantity group, quantity or derived name, overriding {@code tolerance}
  */
 public record Experiment(String name, String description, Path file, String sha256, String gameText, StageGame game,
     List<Pair> pairs, List<String> noise, List<String> misperception, List<Horizon> horizons,
     Map<String, List<Double>> parameters, long replicates, long seed, double alpha, double tolerance, long burnIn,
     List<Long> snapshots, Set<Quantity> quantities, Set<Comparison> tests, Correction correction, Path claims,
-    Path output, StrategySet strategySet) {
+    Path output, StrategySet strategySet, List<DerivedQuantity> derived,
+    Map<String, Tolerance> tolerances) {
 
     /**
      * Copies the collections and checks the invariants; messages name the component and show the value.
@@ -66,6 +69,8 @@ public record Experiment(String name, String description, Path file, String sha2
         Objects.requireNonNull(correction, "correction");
         Objects.requireNonNull(output, "output");
         pairs = nonEmpty("pairs", pairs);
+        derived = List.copyOf(derived);
+        tolerances = Collections.unmodifiableMap(new LinkedHashMap<>(tolerances));
         if (strategySet != null) {
             for (StrategySet.Cell cell : strategySet.cells()) {
                 if (pairs.stream().noneMatch(p -> p.name().equals(cell.pairName()))) {
@@ -131,7 +136,7 @@ public record Experiment(String name, String description, Path file, String sha2
         List<Long> snapshots, Set<Quantity> quantities, Set<Comparison> tests, Correction correction, Path claims,
         Path output) {
         this(name, description, file, sha256, gameText, game, pairs, noise, misperception, horizons, parameters,
-            replicates, seed, alpha, tolerance, burnIn, snapshots, quantities, tests, correction, claims, output, null);
+            replicates, seed, alpha, tolerance, burnIn, snapshots, quantities, tests, correction, claims, output, null, List.of(), Map.of());
     }
 
     private static <T> List<T> nonEmpty(String what, List<T> values) {
@@ -182,6 +187,8 @@ public record Experiment(String name, String description, Path file, String sha2
         Path claims;
         Path output;
         StrategySet strategySet;
+        List<DerivedQuantity> derived = new ArrayList<>();
+        Map<String, Tolerance> tolerances = new LinkedHashMap<>();
 
         /** @return whether the horizons are continuation probabilities (random game lengths) */
         boolean continuation() {
@@ -196,7 +203,7 @@ public record Experiment(String name, String description, Path file, String sha2
             }
             return new Experiment(name, description, file, sha256, gameText, game, all, noise, misperception,
                 horizons, parameters, replicates, seed, alpha, tolerance, burnIn, snapshots, quantities, tests,
-                correction, claims, output, strategySet);
+                correction, claims, output, strategySet, derived, tolerances);
         }
     }
 
@@ -224,7 +231,9 @@ public record Experiment(String name, String description, Path file, String sha2
         /** Each player's cooperation rate. */
         COOPERATION,
         /** Each player's payoff per round. */
-        PAYOFFS
+        PAYOFFS,
+        /** The experiment's derived quantities (of its {@code derived:} section). */
+        DERIVED
     }
 
     /** The comparisons between simulation and exact prediction. */

@@ -23,8 +23,9 @@ import reprise.game.StageGame;
 final class ExperimentSchema {
 
     /** The top-level keys, in the order README lists them. */
-    static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "pairs", "strategy_set", "grid", "replicates",
-        "seed", "alpha", "tolerance", "burn_in", "snapshots", "quantities", "tests", "correction", "claims", "output");
+    static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "pairs", "strategy_set",
+        "grid", "replicates", "seed", "alpha", "tolerance", "tolerances", "burn_in", "snapshots", "quantities",
+        "derived", "tests", "correction", "claims", "output");
     static final List<String> GRID_KEYS = List.of("noise", "misperception", "rounds", "continuation", "parameters");
     static final List<String> PAIR_KEYS = List.of("name", "x", "y");
     private static final Pattern NAME = Pattern.compile("[A-Za-z0-9][A-Za-z0-9._-]*");
@@ -64,7 +65,9 @@ final class ExperimentSchema {
         if (s.top.containsKey("pairs") || !s.top.containsKey("strategy_set")) {
             s.builder.pairs = pairs(s.top.get("pairs"), problems);
         }
+        s.builder.derived = DerivedSection.read(s.top.get("derived"), problems);
         s.numbers();
+        s.builder.tolerances = ToleranceSection.read(s.top.get("tolerances"), s.builder.derived, problems);
         s.snapshots();
         s.comparisons();
         s.files(file);

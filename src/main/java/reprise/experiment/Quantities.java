@@ -31,6 +31,9 @@ final class Quantities {
                 out.add(q);
             }
         }
+        if (e.quantities().contains(Experiment.Quantity.DERIVED)) {
+            out.addAll(e.derived());
+        }
         return out;
     }
 
@@ -40,7 +43,47 @@ final class Quantities {
      * @return the exact value for the tallied rounds of the case's horizon
      */
     static double exact(Quantity q, CaseResult r) {
-        return r.exact().value(q.weights(r.c().match().game()));
+        return exact(q, r.exact(), r.c().match().game());
+    }
+
+    /**
+     * @param q the quantity
+     * @param exact the exact side of a case
+     * @param game the stage game
+     * @return the exact value for the tallied rounds (for a ratio, E[a . N] / E[b . N])
+     */
+    static double exact(Quantity q, CaseAnalysis.Exact exact, StageGame game) {
+        if (q instanceof DerivedQuantity d && d.isRatio()) {
+            return exact.value(d.weights(game)) / exact.value(d.denominatorWeights(game));
+        }
+        return exact.value(q.weights(game));
+    }
+
+    /**
+     * The exact standard error of a ratio's estimate from G games under the exact model (delta method):
+     * sqrt((a - R b)' Sigma (a - R b) / G) / E[b . N], Sigma the exact covariance of one game's counts.
+     *
+     * @param d a ratio
+     * @param exact the exact side
+     * @param game the stage game
+     * @param games G
+     * @return the standard error
+     */
+    static double ratioStandardError(DerivedQuantity d, CaseAnalysis.Exact exact, StageGame game, long games) {
+        double[] a = d.weights(game);
+        double[] b = d.denominatorWeights(game);
+        double r = exact(d, exact, game);
+        double[] c = new double[4];
+        for (int s = 0; s < 4; s++) {
+            c[s] = a[s] - r * b[s];
+        }
+        double v = Math.max(0, exact.moments().quadraticForm(c));
+        return Math.sqrt(v / games) / Math.abs(exact.value(b) * exact.meanLength());
+    }
+
+    /** @return whether q is a derived ratio */
+    static boolean isRatio(Quantity q) {
+        return q instanceof DerivedQuantity d && d.isRatio();
     }
 
     /**
@@ -50,6 +93,10 @@ final class Quantities {
      * @return the quantity's value at those frequencies
      */
     static double value(Quantity q, StageGame game, double[] frequencies) {
+        if (q instanceof DerivedQuantity d && d.isRatio()) {
+            return CaseAnalysis.dot(d.weights(game), frequencies)
+                / CaseAnalysis.dot(d.denominatorWeights(game), frequencies);
+        }
         return CaseAnalysis.dot(q.weights(game), frequencies);
     }
 
@@ -60,6 +107,9 @@ final class Quantities {
      * @return the replicate estimate (games as independent observations)
      */
     static Estimate estimate(Quantity q, StageGame game, GameSummary summary) {
+        if (q instanceof DerivedQuantity d && d.isRatio()) {
+            return ReplicateInference.ratio(summary, d.weights(game), d.denominatorWeights(game));
+        }
         return ReplicateInference.mean(summary, q.weights(game));
     }
 }

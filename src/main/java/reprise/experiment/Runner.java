@@ -213,7 +213,7 @@ public final class Runner {
      * @param claims claims by case index, each by the quantity's name in the claims file (may be empty)
      * @return the outcome
      */
-    public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, Map<BaseQuantity, Claims.Claim>> claims) {
+    public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, ? extends Map<? extends Quantity, Claims.Claim>> claims) {
         List<Comparisons.Pending> pending = new ArrayList<>();
         for (CaseResult r : results) {
             pending.addAll(Comparisons.rows(e, r, claims.get(r.c().index())));
@@ -274,7 +274,8 @@ public final class Runner {
         if (!p.margin()) {
             return rejected ? Verdict.DISAGREES : Verdict.CONSISTENT;
         }
-        boolean outside = Math.abs(row.observed() - row.predicted()) > e.tolerance();
+        boolean outside = Math.abs(row.observed() - row.predicted())
+            > (Double.isNaN(p.tolerance()) ? e.tolerance() : p.tolerance());
         return rejected && outside ? Verdict.DISAGREES : adjustedEquiv < e.alpha() ? Verdict.AGREES
             : Verdict.INCONCLUSIVE;
     }
