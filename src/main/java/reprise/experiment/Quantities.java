@@ -104,11 +104,18 @@ final class Quantities {
      * @param q the quantity
      * @param game the stage game
      * @param summary the simulated games (at least 2)
-     * @return the replicate estimate (games as independent observations)
+     * @return the replicate estimate (games as independent observations), or null for a ratio whose
+     *     denominator is 0 in every game
      */
     static Estimate estimate(Quantity q, StageGame game, GameSummary summary) {
         if (q instanceof DerivedQuantity d && d.isRatio()) {
-            return ReplicateInference.ratio(summary, d.weights(game), d.denominatorWeights(game));
+            double[] b = d.denominatorWeights(game);
+            double total = 0;
+            long[] counts = summary.sumCounts();
+            for (int s = 0; s < 4; s++) {
+                total += b[s] * counts[s];
+            }
+            return total == 0 ? null : ReplicateInference.ratio(summary, d.weights(game), b);
         }
         return ReplicateInference.mean(summary, q.weights(game));
     }

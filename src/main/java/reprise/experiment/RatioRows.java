@@ -21,7 +21,8 @@ import reprise.stats.GameSummary;
  * counts), and for each game length the simulated games are compared with it in a descriptive
  * {@code long-run-claim-vs-simulation} row that reports the exact finite-horizon bias (exact value for
  * the length played minus the claimed long-run value) and whether games of this length match the claim
- * within the tolerance.
+ * within the experiment's tolerance for the quantity (a row's own tolerance in the claims file judges the
+ * claim against the exact long-run value).
  */
 final class RatioRows {
 
@@ -56,7 +57,7 @@ final class RatioRows {
             double alpha = e.alpha();
             Estimate est = Quantities.estimate(d, game, summary);
             double exact = Quantities.exact(d, r.exact(), game);
-            if (!Double.isFinite(est.value()) || !Double.isFinite(exact)) {
+            if (est == null || !Double.isFinite(exact)) {
                 continue;
             }
             double h = Tolerance.of(e, d).margin(exact);
@@ -97,7 +98,7 @@ final class RatioRows {
         for (DerivedQuantity d : ratios(e)) {
             Estimate est = Quantities.estimate(d, game, summary);
             double target = Quantities.value(d, game, r.exact().prediction().stationary());
-            if (!Double.isFinite(est.value()) || !Double.isFinite(target)) {
+            if (est == null || !Double.isFinite(target)) {
                 continue;
             }
             out.add(descriptive(e, r, d, est, target, Quantities.exact(d, r.exact(), game), ComparisonKind.STATIONARY,
@@ -139,16 +140,16 @@ final class RatioRows {
                         + " differs by " + Comparisons.fmt(longRun - claimed) + ", tolerance +-" + Comparisons.fmt(h))
                     .build(), Double.NaN, false, true, h));
             }
-            if (Double.isFinite(est.value())) {
+            if (est != null) {
                 double exact = r.exact() == null ? Double.NaN : Quantities.exact(q, r.exact(), game);
                 exact = Double.isFinite(exact) ? exact : Double.NaN;
                 out.add(descriptive(e, r, q, est, claimed, exact, ComparisonKind.LONG_RUN_CLAIM_VS_SIMULATION,
-                    tolerance, from + " (long-run value); exact finite-horizon bias (value for "
+                    Tolerance.of(e, q), from + " (long-run value); exact finite-horizon bias (value for "
                         + r.c().horizon().describe() + " minus the claim) = "));
             }
             return out;
         }
-        if (Double.isFinite(est.value())) {
+        if (est != null) {
             Equivalence.Result eq = Equivalence.assess(est, claimed, h, alpha);
             out.add(new Comparisons.Pending(ResultRow.builder(r.c(), q, ComparisonKind.CLAIM_VS_SIMULATION)
                 .predicted(claimed).observed(est.value()).interval(est.interval(1 - alpha))

@@ -196,10 +196,12 @@ public record SetMatrix(List<String> strategies, Map<String, Double> parameters,
             double hi = Double.NaN;
             if (summary.games() >= 2) {
                 Estimate est = Quantities.estimate(q, r.c().match().game(), summary);
-                Interval ci = est.interval(1 - e.alpha());
-                mean = est.value();
-                lo = ci.lower();
-                hi = ci.upper();
+                if (est != null) {
+                    Interval ci = est.interval(1 - e.alpha());
+                    mean = est.value();
+                    lo = ci.lower();
+                    hi = ci.upper();
+                }
             }
             Verdict v = rows.stream().filter(row -> row.caseIndex() == index && row.subject().equals(q)
                 && row.comparisonKind() == ComparisonKind.EXACT).map(ResultRow::verdict).findFirst().orElse(null);

@@ -98,8 +98,9 @@ public final class ReplicateInference {
      * @param summary the sufficient statistics of G &ge; 2 games
      * @param a the numerator's weights, order CC, CD, DC, DD
      * @param b the denominator's weights
-     * @return the estimate; value NaN when sum_g B_g is 0
-     * @throws IllegalArgumentException if fewer than 2 games or a weight is not finite
+     * @return the estimate
+     * @throws IllegalArgumentException if fewer than 2 games, a weight is not finite, or sum_g B_g is 0 (the
+     *     ratio is undefined)
      */
     public static Estimate ratio(GameSummary summary, double[] a, double[] b) {
         double[] wa = Checks.finiteVector("numerator weights", a, 4);
@@ -117,7 +118,7 @@ public final class ReplicateInference {
         BigDecimal[] ss = summary.linearSums(sum);
         BigDecimal sab2 = ss[1].subtract(sa[1]).subtract(sb[1]);
         if (sb[0].signum() == 0) {
-            return new Estimate(Double.NaN, Double.NaN, g - 1, g);
+            throw new IllegalArgumentException("the ratio's denominator is 0 in every game: the ratio is undefined");
         }
         // q = sum (A - R B)^2 * (sum B)^2 = sAA sB^2 - 2 sA sAB sB + sA^2 sBB, with 2 sAB = sab2
         BigDecimal q = sa[1].multiply(sb[0]).multiply(sb[0]).subtract(sa[0].multiply(sab2).multiply(sb[0]))
