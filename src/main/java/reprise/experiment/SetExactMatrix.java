@@ -20,7 +20,7 @@ import reprise.game.Noise;
  * @param noise the execution error as written
  * @param misperception the perception error as written
  * @param horizon the game length, or null for the long run
- * @param matrix the exact matrix (labels are the set's names)
+ * @param matrix the exact matrix (its labels are the strategies'; the set's names are {@link StrategySet#names()})
  */
 public record SetExactMatrix(Map<String, Double> parameters, String noise, String misperception, Horizon horizon,
     StrategyMatrix matrix) {

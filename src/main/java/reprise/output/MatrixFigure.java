@@ -101,8 +101,8 @@ public final class MatrixFigure {
             }
         }
         for (int b = 0; b < BINS.length; b++) {
-            XYSeries band = chart.addSeries(String.format(Locale.ROOT, "%.3g to %.3g", lo + width * b / BINS.length,
-                lo + width * (b + 1) / BINS.length), new double[] {0, 0, 0}, new double[] {0, 0, 0});
+            XYSeries band = chart.addSeries(legend(lo + width * b / BINS.length) + " to "
+                + legend(lo + width * (b + 1) / BINS.length), new double[] {0, 0, 0}, new double[] {0, 0, 0});
             band.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.PolygonArea);
             band.setMarker(SeriesMarkers.NONE);
             band.setFillColor(BINS[b]);
@@ -117,6 +117,11 @@ public final class MatrixFigure {
             x.setLineStyle(new BasicStroke(3f));
         }
         return chart;
+    }
+
+    /** Three significant digits without trailing zeros, e.g. 0, 0.625, 1.88. */
+    private static String legend(double v) {
+        return new java.math.BigDecimal(String.format(Locale.ROOT, "%.3g", v)).stripTrailingZeros().toPlainString();
     }
 
     /** The colour band of a payoff on the scale [lo, lo + width]. */
