@@ -46,6 +46,11 @@ final class DerivedSection {
                 problems.add(line, field, "is the name of a base quantity; choose another name");
                 continue;
             }
+            if (isReserved(name)) {
+                problems.add(line, field, "is reserved (a results.csv subject or a quantity group: states, "
+                    + "transitions, snapshot_N, cooperation, payoffs, derived); choose another name");
+                continue;
+            }
             if (names.contains(name)) {
                 problems.add(line, field, "is given twice");
                 continue;
@@ -64,6 +69,20 @@ final class DerivedSection {
             }
         }
         return out;
+    }
+
+    private static boolean isReserved(String name) {
+        for (Subject.Joint j : Subject.Joint.values()) {
+            if (j.label().equals(name)) {
+                return true;
+            }
+        }
+        for (Experiment.Quantity g : Experiment.Quantity.values()) {
+            if (g.name().equalsIgnoreCase(name)) {
+                return true;
+            }
+        }
+        return name.startsWith(Subject.Snapshot.PREFIX);
     }
 
     private static boolean isBaseName(String name) {
