@@ -147,16 +147,24 @@ final class ExperimentRules {
                 continue;
             }
             List<String> seen = new ArrayList<>();
+            List<Horizon> all = new ArrayList<>(hs);
+            set.exactContinuation().forEach(d -> all.add(Horizon.continuation(d)));
             for (Map<String, Double> point : points) {
-                for (Horizon h : hs) {
+                for (Horizon h : all) {
                     String spec = Grid.substitute(s.spec(), Grid.withHorizon(point, h));
+                    if (!Grid.placeholders(spec).isEmpty()) {
+                        continue;
+                    }
                     for (Player player : Player.values()) {
                         try {
                             Strategies.parse(spec, b.game, player);
                         } catch (IllegalArgumentException ex) {
                             if (!seen.contains(ex.getMessage())) {
                                 seen.add(ex.getMessage());
-                                problems.add(s.line(), field, ex.getMessage());
+                                boolean extra = h instanceof Horizon.Continuation c && !hs.contains(h)
+                                    && set.exactContinuation().contains(c.probability());
+                                problems.add(s.line(), field, ex.getMessage() + (extra ? " (for exact_continuation "
+                                    + ExperimentFile.num(((Horizon.Continuation) h).probability()) + ")" : ""));
                             }
                         }
                     }

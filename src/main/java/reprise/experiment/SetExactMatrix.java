@@ -6,7 +6,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
-import reprise.chain.NoPredictionException;
 import reprise.chain.StrategyMatrix;
 import reprise.game.Horizon;
 import reprise.game.Noise;
@@ -85,8 +84,9 @@ public record SetExactMatrix(Map<String, Double> parameters, String noise, Strin
                         try {
                             out.add(new SetExactMatrix(point, noise, mis, h, StrategyMatrix.of(e.game(), specs, n,
                                 h)));
-                        } catch (NoPredictionException ex2) {
-                            // no exact chain for some strategy of the set: no exact matrix at this point
+                        } catch (IllegalArgumentException ex2) {
+                            // NoPredictionException (a subclass) when a strategy of the set has no exact
+                            // chain, or a spec the file check could not resolve: no exact matrix here
                         }
                     }
                 }
