@@ -20,9 +20,13 @@ import reprise.game.Horizon;
  * <p>Format (documented in README.md, "Claims files"): a header row; a {@code pair} column naming the
  * pair; optional key columns {@code noise}, {@code misperception}, {@code rounds} or {@code continuation}
  * and one per grid parameter, which pick the grid points the row is about (a key column left out, or an
- * empty cell, means "every value of that axis"); and one or more value columns among {@link #QUANTITIES}.
- * An empty value cell claims nothing. Every row must match at least one case, and no two rows may claim
- * the same quantity of the same case.
+ * empty cell, means "every value of that axis"); and one or more value columns among {@link #QUANTITIES}
+ * and the experiment's derived quantities. Two optional columns qualify a row's claims: {@code value_is}
+ * ({@code exact}, the default: the expected value for the game length played; or {@code long-run}: the
+ * stationary value, or the time-average limit when there is no unique stationary distribution) and
+ * {@code tolerance} (a margin for this row, absolute such as 0.05 or relative such as 2%). An empty value
+ * cell claims nothing. Every row must match at least one case, and no two rows may claim the same quantity
+ * of the same case.
  */
 public final class Claims {
 
@@ -33,13 +37,40 @@ public final class Claims {
     private Claims() {
     }
 
+    /** The column that says which value a row claims. */
+    static final String VALUE_IS = "value_is";
+    /** The column that gives a row's own tolerance. */
+    static final String TOLERANCE = "tolerance";
+
     /**
      * One claimed value.
      *
      * @param value the claimed number
      * @param line the CSV line it came from (header is line 1)
+     * @param longRun whether the value claimed is the long-run one (else the value for the length played)
+     * @param tolerance the row's own margin, or null for the experiment's
      */
-    public record Claim(double value, long line) {
+    public record Claim(double value, long line, boolean longRun, Tolerance tolerance) {
+        /**
+         * A claim of the value for the length played, with the experiment's tolerance.
+         *
+         * @param value the claimed number
+         * @param line its CSV line
+         */
+        public Claim(double value, long line) {
+            this(value, line, false, null);
+        }
+
+        /**
+         * The margin this claim is judged with.
+         *
+         * @param e the experiment
+         * @param q the quantity claimed
+         * @return the row's tolerance, else the experiment's for the quantity
+         */
+        public Tolerance tolerance(Experiment e, Quantity q) {
+            return tolerance != null ? tolerance : Tolerance.of(e, q);
+        }
     }
 
     /**
@@ -88,31 +119,62 @@ public final class Claims {
      * @throws InvalidExperimentException listing every problem with file, line and column
      */
     public static Map<Integer, Map<BaseQuantity, Claim>> read(Path file, Experiment experiment, List<Case> cases) {
-        Problems problems = new Problems(file.toString());
         Map<Integer, Map<BaseQuantity, Claim>> out = new LinkedHashMap<>();
+        readAll(file, experiment, cases).forEach((i, m) -> {
+            Map<BaseQuantity, Claim> base = new LinkedHashMap<>();
+            m.forEach((q, c) -> {
+                if (q instanceof BaseQuantity b) {
+                    base.put(b, c);
+                }
+            });
+            if (!base.isEmpty()) {
+                out.put(i, base);
+            }
+        });
+        return out;
+    }
+
+    /**
+     * Reads a claims file, with claims on derived quantities too, and matches it to the experiment's cases.
+     *
+     * @param file the CSV file
+     * @param experiment the experiment
+     * @param cases its expanded cases
+     * @return for each case index that has claims, the claims by quantity, in file order
+     * @throws InvalidExperimentException listing every problem with file, line and column
+     */
+    public static Map<Integer, Map<Quantity, Claim>> readAll(Path file, Experiment experiment, List<Case> cases) {
+        Problems problems = new Problems(file.toString());
+        Map<Integer, Map<Quantity, Claim>> out = new LinkedHashMap<>();
         CSVFormat format = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).setTrim(true)
             .setIgnoreEmptyLines(true).setCommentMarker('#').build();
         String text = text(file, format, problems);
         try (Reader r = new java.io.StringReader(text); CSVParser parser = format.parse(r)) {
             List<String> header = parser.getHeaderNames();
-            List<BaseQuantity> valueColumns = valueColumns(header, knownColumns(experiment),
+            List<Quantity> valueColumns = valueColumns(header, knownColumns(experiment), experiment,
                 (int) Math.max(1, parser.getCurrentLineNumber()), problems);
             problems.throwIfAny();
+            List<String> skip = new ArrayList<>(valueColumns.stream().map(Quantity::label).toList());
+            skip.add(VALUE_IS);
+            skip.add(TOLERANCE);
             for (CSVRecord rec : parser) {
                 long line = physicalLine(parser, rec);
                 if (!rec.isConsistent()) {
                     problems.add((int) line, "row", "has " + rec.size() + " cells, the header has " + header.size());
                     continue;
                 }
-                Map<BaseQuantity, Double> values = values(rec, valueColumns, line, problems);
-                List<Case> matches = cases.stream().filter(c -> matches(c, rec, header)).toList();
+                Map<Quantity, Double> values = values(rec, valueColumns, line, problems);
+                boolean longRun = longRun(rec, header, line, problems);
+                Tolerance tolerance = tolerance(rec, header, line, problems);
+                List<Case> matches = cases.stream().filter(c -> matches(c, rec, header, skip)).toList();
                 if (matches.isEmpty()) {
-                    problems.add((int) line, "row", "matches no grid point of the experiment (" + describe(rec, header)
+                    problems.add((int) line, "row", "matches no grid point of the experiment (" + describe(rec, header, skip)
                         + ")");
                     continue;
                 }
                 for (Case c : matches) {
-                    record(out.computeIfAbsent(c.index(), k -> new LinkedHashMap<>()), c, values, line, problems);
+                    record(out.computeIfAbsent(c.index(), k -> new LinkedHashMap<>()), c, values, line, longRun,
+                        tolerance, problems);
                 }
             }
         } catch (IOException | IllegalArgumentException e) {
@@ -150,23 +212,58 @@ public final class Claims {
             experiment.horizons().get(0) instanceof Horizon.Rounds ? "rounds" : "continuation"));
         known.addAll(experiment.parameters().keySet());
         known.addAll(QUANTITIES);
+        experiment.derived().forEach(d -> known.add(d.name()));
+        known.add(VALUE_IS);
+        known.add(TOLERANCE);
         return known;
     }
 
+    /** A row's value_is cell: false for exact (or empty), true for long-run; anything else is reported. */
+    private static boolean longRun(CSVRecord rec, List<String> header, long line, Problems problems) {
+        if (!header.contains(VALUE_IS)) {
+            return false;
+        }
+        String cell = rec.get(VALUE_IS);
+        if (cell.isEmpty() || cell.equals("exact")) {
+            return false;
+        }
+        if (cell.equals("long-run")) {
+            return true;
+        }
+        problems.add((int) line, VALUE_IS, "must be exact (the value for the game length played) or long-run (the "
+            + "stationary or time-average limit value): '" + cell + "'");
+        return false;
+    }
+
+    /** A row's tolerance cell, or null when absent or empty; a bad cell is reported. */
+    private static Tolerance tolerance(CSVRecord rec, List<String> header, long line, Problems problems) {
+        if (!header.contains(TOLERANCE) || rec.get(TOLERANCE).isEmpty()) {
+            return null;
+        }
+        try {
+            return Tolerance.parse(rec.get(TOLERANCE));
+        } catch (IllegalArgumentException e) {
+            problems.add((int) line, TOLERANCE, e.getMessage());
+            return null;
+        }
+    }
+
     /** The header's value columns, after reporting a missing pair column and unknown columns. */
-    private static List<BaseQuantity> valueColumns(List<String> header, List<String> known, int headerLine,
-        Problems problems) {
+    private static List<Quantity> valueColumns(List<String> header, List<String> known, Experiment experiment,
+        int headerLine, Problems problems) {
         if (!header.contains("pair")) {
             problems.add(headerLine, "pair", "column is missing; the header needs pair and at least one of "
                 + String.join(", ", QUANTITIES));
         }
-        List<BaseQuantity> valueColumns = new ArrayList<>();
+        List<Quantity> valueColumns = new ArrayList<>();
         for (String h : header) {
             if (!known.contains(h)) {
                 problems.add(headerLine, h, "unknown column" + Problems.didYouMean(h, known) + "; known: "
                     + String.join(", ", known));
             } else if (QUANTITIES.contains(h)) {
                 valueColumns.add(BaseQuantity.ofLabel(h));
+            } else {
+                experiment.derived().stream().filter(d -> d.name().equals(h)).findFirst().ifPresent(valueColumns::add);
             }
         }
         if (valueColumns.isEmpty()) {
@@ -176,10 +273,10 @@ public final class Claims {
     }
 
     /** The claimed values of one row (empty cells claim nothing); bad cells are reported. */
-    private static Map<BaseQuantity, Double> values(CSVRecord rec, List<BaseQuantity> columns, long line,
+    private static Map<Quantity, Double> values(CSVRecord rec, List<Quantity> columns, long line,
         Problems problems) {
-        Map<BaseQuantity, Double> values = new LinkedHashMap<>();
-        for (BaseQuantity q : columns) {
+        Map<Quantity, Double> values = new LinkedHashMap<>();
+        for (Quantity q : columns) {
             String cell = rec.get(q.label());
             if (cell.isEmpty()) {
                 continue;
@@ -192,7 +289,7 @@ public final class Claims {
             }
             if (!Double.isFinite(v)) {
                 problems.add((int) line, q.label(), "must be a finite number: '" + cell + "'");
-            } else if (q.isFrequency() && !(v >= 0 && v <= 1)) {
+            } else if (q instanceof BaseQuantity b && b.isFrequency() && !(v >= 0 && v <= 1)) {
                 problems.add((int) line, q.label(), "is a frequency and must be in [0, 1]: " + cell);
             } else {
                 values.put(q, v);
@@ -202,10 +299,10 @@ public final class Claims {
     }
 
     /** Adds a row's values to one case's claims, reporting a second claim of the same quantity. */
-    private static void record(Map<BaseQuantity, Claim> claims, Case c, Map<BaseQuantity, Double> values, long line,
-        Problems problems) {
-        for (Map.Entry<BaseQuantity, Double> v : values.entrySet()) {
-            Claim prev = claims.put(v.getKey(), new Claim(v.getValue(), line));
+    private static void record(Map<Quantity, Claim> claims, Case c, Map<Quantity, Double> values, long line,
+        boolean longRun, Tolerance tolerance, Problems problems) {
+        for (Map.Entry<Quantity, Double> v : values.entrySet()) {
+            Claim prev = claims.put(v.getKey(), new Claim(v.getValue(), line, longRun, tolerance));
             if (prev != null) {
                 problems.add((int) line, v.getKey().label(), "case " + c.id() + " already has a claim for "
                     + v.getKey().label() + " from line " + prev.line());
@@ -213,10 +310,10 @@ public final class Claims {
         }
     }
 
-    private static boolean matches(Case c, CSVRecord rec, List<String> header) {
+    private static boolean matches(Case c, CSVRecord rec, List<String> header, List<String> skip) {
         for (String h : header) {
             String cell = rec.get(h);
-            if (cell.isEmpty() || QUANTITIES.contains(h)) {
+            if (cell.isEmpty() || skip.contains(h)) {
                 continue;
             }
             switch (h) {
@@ -270,10 +367,10 @@ public final class Claims {
         }
     }
 
-    private static String describe(CSVRecord rec, List<String> header) {
+    private static String describe(CSVRecord rec, List<String> header, List<String> skip) {
         List<String> parts = new ArrayList<>();
         for (String h : header) {
-            if (!QUANTITIES.contains(h) && !rec.get(h).isEmpty()) {
+            if (!QUANTITIES.contains(h) && !skip.contains(h) && !rec.get(h).isEmpty()) {
                 parts.add(h + "=" + rec.get(h));
             }
         }

@@ -15,7 +15,13 @@ public enum ComparisonKind {
     /** A claimed value against the simulation. */
     CLAIM_VS_SIMULATION("claim-vs-simulation", true, true),
     /** A claimed value against the exact expectation. */
-    CLAIM_VS_EXACT("claim-vs-exact", true, true);
+    CLAIM_VS_EXACT("claim-vs-exact", true, true),
+    /**
+     * A claimed long-run value against the simulated games of one length: whether games of this length
+     * match it, with the exact finite-horizon bias (descriptive; the claim itself is checked against the
+     * exact long-run value by a {@link #CLAIM_VS_EXACT} row).
+     */
+    LONG_RUN_CLAIM_VS_SIMULATION("long-run-claim-vs-simulation", false, true);
 
     private final String label;
     private final boolean countsTowardsExit;

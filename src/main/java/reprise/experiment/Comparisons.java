@@ -108,14 +108,16 @@ public final class Comparisons {
             return m != null ? m : ModelDraws.fromData(summary, ReplicateInference.mean(summary, w).standardError() > 0);
         }
 
-        /** The quantities the experiment reports: today the base quantities of its groups; derived ones join here. */
+        /**
+         * The quantities of the form w . N / L the experiment reports: the base quantities of its groups,
+         * then its derived combinations (derived ratios have rows of their own, {@link RatioRows}).
+         */
         List<Quantity> reported() {
-            return List.<Quantity>of(BaseQuantity.values()).stream()
-                .filter(q -> e.quantities().contains(q.group())).toList();
+            return Quantities.reported(e).stream().filter(q -> !Quantities.isRatio(q)).toList();
         }
     }
 
-    static List<Pending> rows(Experiment e, CaseResult r, Map<BaseQuantity, Claims.Claim> claims) {
+    static List<Pending> rows(Experiment e, CaseResult r, Map<? extends Quantity, Claims.Claim> claims) {
         List<Pending> out = new ArrayList<>();
         GameSummary summary = CaseAnalysis.summary(r.simulation());
         ModelDraws draws = r.exact() == null ? null : new ModelDraws(r.exact(), r.c().horizon(), e.burnIn(), r.seed());
@@ -126,6 +128,7 @@ public final class Comparisons {
             if (e.tests().contains(Experiment.Comparison.FREQUENCIES)) {
                 out.add(wald(x, tests.get(TestId.Standard.FREQUENCIES_WALD)));
                 x.reported().forEach(q -> out.add(exactQuantity(x, q)));
+                out.addAll(RatioRows.exact(e, r, x.summary()));
             }
             if (e.tests().contains(Experiment.Comparison.TRANSITIONS)) {
                 transitions(x, tests, out);
@@ -135,10 +138,17 @@ public final class Comparisons {
             }
             if (e.tests().contains(Experiment.Comparison.STATIONARY) && r.exact().prediction().stationary() != null) {
                 x.reported().forEach(q -> out.add(stationary(x, q)));
+                out.addAll(RatioRows.stationary(e, r, x.summary()));
             }
         }
         if (claims != null && enoughGames) {
-            claims.forEach((q, claim) -> claim(x, q, claim, out));
+            claims.forEach((q, claim) -> {
+                if (Quantities.isRatio(q) || claim.longRun()) {
+                    out.addAll(RatioRows.claim(e, r, x.summary(), q, claim));
+                } else {
+                    claim(x, q, claim, out);
+                }
+            });
             if (r.exact() == null && claims.keySet().containsAll(BaseQuantity.STATES)) {
                 out.add(claimedStates(x, claims));
             }
@@ -175,8 +185,7 @@ public final class Comparisons {
         }
     }
 
-    private static Margin margin(Context x, double[] w, double target) {
-        double h = x.e().tolerance();
+    private static Margin margin(Context x, double[] w, double target, double h) {
         double alpha = x.e().alpha();
         GameSummary summary = x.summary();
         Estimate est = ReplicateInference.mean(summary, w);
@@ -227,10 +236,10 @@ public final class Comparisons {
 
     /** A quantity against its exact expectation: z-test with the exact standard error, agreement within h. */
     private static Pending exactQuantity(Context x, Quantity q) {
-        double h = x.e().tolerance();
         double[] w = x.weights(q);
         double target = x.exact().value(w);
-        Margin m = margin(x, w, target);
+        double h = Tolerance.of(x.e(), q).margin(target);
+        Margin m = margin(x, w, target, h);
         Estimate est = m.estimate();
         TestResult z = CaseAnalysis.zTest(x.exact(), est, w);
         ResultRow row = ResultRow.builder(x.c(), q, ComparisonKind.EXACT).predicted(target)
@@ -431,11 +440,11 @@ public final class Comparisons {
      * finite-horizon bias beside the sampling error (descriptive).
      */
     private static Pending stationary(Context x, Quantity q) {
-        double h = x.e().tolerance();
         double alpha = x.e().alpha();
         double[] w = x.weights(q);
         double target = CaseAnalysis.dot(w, x.exact().prediction().stationary());
-        Margin m = margin(x, w, target);
+        double h = Tolerance.of(x.e(), q).margin(target);
+        Margin m = margin(x, w, target, h);
         Estimate est = m.estimate();
         Equivalence.Result eq = Equivalence.assess(est, target, h, alpha);
         Equivalence.BiasReport bias = Equivalence.biasReport(x.exact().value(w), target, est);
@@ -460,12 +469,12 @@ public final class Comparisons {
     }
 
     /** A claimed value against the simulation (t-test and TOST) and against the exact expectation. */
-    private static void claim(Context x, BaseQuantity q, Claims.Claim claim, List<Pending> out) {
-        double h = x.e().tolerance();
+    private static void claim(Context x, Quantity q, Claims.Claim claim, List<Pending> out) {
         double alpha = x.e().alpha();
         double claimed = claim.value();
+        double h = claim.tolerance(x.e(), q).margin(claimed);
         double[] w = x.weights(q);
-        Margin m = margin(x, w, claimed);
+        Margin m = margin(x, w, claimed, h);
         Estimate est = m.estimate();
         Equivalence.Result eq = Equivalence.assess(est, claimed, h, alpha);
         double t = est.standardError() > 0 ? (est.value() - claimed) / est.standardError() : Double.NaN;
@@ -487,7 +496,7 @@ public final class Comparisons {
     }
 
     /** All four claimed state frequencies against the simulation, when there is no exact covariance. */
-    private static Pending claimedStates(Context x, Map<BaseQuantity, Claims.Claim> claims) {
+    private static Pending claimedStates(Context x, Map<? extends Quantity, Claims.Claim> claims) {
         double[] f = new double[4];
         for (int s = 0; s < 4; s++) {
             f[s] = claims.get(BaseQuantity.STATES.get(s)).value();

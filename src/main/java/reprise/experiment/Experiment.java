@@ -43,12 +43,16 @@ import reprise.game.StageGame;
  * @param correction the multiple-testing correction
  * @param claims the claims file, or null
  * @param output the output folder
+ * @param strategySet the strategy set whose matches are among the pairs, or null
+ * @param derived the derived quantities, in file order (names unique, none a base quantity's)
+ * @param tolerances margins by quantity group, quantity or derived name, overriding {@code tolerance}
  */
 public record Experiment(String name, String description, Path file, String sha256, String gameText, StageGame game,
     List<Pair> pairs, List<String> noise, List<String> misperception, List<Horizon> horizons,
     Map<String, List<Double>> parameters, long replicates, long seed, double alpha, double tolerance, long burnIn,
     List<Long> snapshots, Set<Quantity> quantities, Set<Comparison> tests, Correction correction, Path claims,
-    Path output) {
+    Path output, StrategySet strategySet, List<DerivedQuantity> derived,
+    Map<String, Tolerance> tolerances) {
 
     /**
      * Copies the collections and checks the invariants; messages name the component and show the value.
@@ -65,6 +69,15 @@ public record Experiment(String name, String description, Path file, String sha2
         Objects.requireNonNull(correction, "correction");
         Objects.requireNonNull(output, "output");
         pairs = nonEmpty("pairs", pairs);
+        derived = List.copyOf(derived);
+        tolerances = Collections.unmodifiableMap(new LinkedHashMap<>(tolerances));
+        if (strategySet != null) {
+            for (StrategySet.Cell cell : strategySet.cells()) {
+                if (pairs.stream().noneMatch(p -> p.name().equals(cell.pairName()))) {
+                    throw new IllegalArgumentException("strategy set match " + cell.pairName() + " is not a pair");
+                }
+            }
+        }
         noise = nonEmpty("noise", noise);
         misperception = nonEmpty("misperception", misperception);
         horizons = nonEmpty("horizons", horizons);
@@ -89,6 +102,41 @@ public record Experiment(String name, String description, Path file, String sha2
                 throw new IllegalArgumentException("snapshot rounds are counted from 1: " + t);
             }
         }
+    }
+
+    /**
+     * An experiment without a strategy set (the form before strategy sets existed).
+     *
+     * @param name see the record
+     * @param description see the record
+     * @param file see the record
+     * @param sha256 see the record
+     * @param gameText see the record
+     * @param game see the record
+     * @param pairs see the record
+     * @param noise see the record
+     * @param misperception see the record
+     * @param horizons see the record
+     * @param parameters see the record
+     * @param replicates see the record
+     * @param seed see the record
+     * @param alpha see the record
+     * @param tolerance see the record
+     * @param burnIn see the record
+     * @param snapshots see the record
+     * @param quantities see the record
+     * @param tests see the record
+     * @param correction see the record
+     * @param claims see the record
+     * @param output see the record
+     */
+    public Experiment(String name, String description, Path file, String sha256, String gameText, StageGame game,
+        List<Pair> pairs, List<String> noise, List<String> misperception, List<Horizon> horizons,
+        Map<String, List<Double>> parameters, long replicates, long seed, double alpha, double tolerance, long burnIn,
+        List<Long> snapshots, Set<Quantity> quantities, Set<Comparison> tests, Correction correction, Path claims,
+        Path output) {
+        this(name, description, file, sha256, gameText, game, pairs, noise, misperception, horizons, parameters,
+            replicates, seed, alpha, tolerance, burnIn, snapshots, quantities, tests, correction, claims, output, null, List.of(), Map.of());
     }
 
     private static <T> List<T> nonEmpty(String what, List<T> values) {
@@ -138,6 +186,9 @@ public record Experiment(String name, String description, Path file, String sha2
         Correction correction = Correction.HOLM;
         Path claims;
         Path output;
+        StrategySet strategySet;
+        List<DerivedQuantity> derived = new ArrayList<>();
+        Map<String, Tolerance> tolerances = new LinkedHashMap<>();
 
         /** @return whether the horizons are continuation probabilities (random game lengths) */
         boolean continuation() {
@@ -146,9 +197,13 @@ public record Experiment(String name, String description, Path file, String sha2
 
         /** @return the experiment */
         Experiment build() {
-            return new Experiment(name, description, file, sha256, gameText, game, pairs, noise, misperception,
+            List<Pair> all = new ArrayList<>(pairs);
+            if (strategySet != null) {
+                all.addAll(strategySet.pairs());
+            }
+            return new Experiment(name, description, file, sha256, gameText, game, all, noise, misperception,
                 horizons, parameters, replicates, seed, alpha, tolerance, burnIn, snapshots, quantities, tests,
-                correction, claims, output);
+                correction, claims, output, strategySet, derived, tolerances);
         }
     }
 
@@ -176,7 +231,9 @@ public record Experiment(String name, String description, Path file, String sha2
         /** Each player's cooperation rate. */
         COOPERATION,
         /** Each player's payoff per round. */
-        PAYOFFS
+        PAYOFFS,
+        /** The experiment's derived quantities (of its {@code derived:} section). */
+        DERIVED
     }
 
     /** The comparisons between simulation and exact prediction. */

@@ -55,7 +55,8 @@ final class ExperimentRules {
             problems.add(schema.line("grid"), "grid.parameters.continuation", "is a reserved name: {continuation} "
                 + "stands for each case's continuation probability");
         }
-        placeholders(b.pairs, b.parameters, b.continuation(), schema.line("grid"), problems);
+        List<String> setPlaceholders = strategySet(b, problems);
+        placeholders(b.pairs, b.parameters, b.continuation(), schema.line("grid"), setPlaceholders, problems);
         double cases = caseCount(b);
         if (cases > MOST_CASES) {
             problems.add(schema.line("grid"), "grid", String.format(Locale.ROOT, "expands into %s cases (pairs x "
@@ -122,8 +123,8 @@ final class ExperimentRules {
     }
 
     private static void placeholders(List<Experiment.Pair> pairs, Map<String, List<Double>> parameters,
-        boolean continuation, int gridLine, Problems problems) {
-        List<String> used = new ArrayList<>();
+        boolean continuation, int gridLine, List<String> alsoUsed, Problems problems) {
+        List<String> used = new ArrayList<>(alsoUsed);
         for (Experiment.Pair p : pairs) {
             for (String ph : Grid.placeholders(p.x() + " " + p.y())) {
                 if (ph.equals(Grid.CONTINUATION) && !continuation) {
@@ -141,6 +142,72 @@ final class ExperimentRules {
                 problems.add(gridLine, "grid.parameters." + k, "is used by no pair (write {" + k + "} in a strategy)");
             }
         }
+    }
+
+    /**
+     * The strategy set's rules: its match names must not clash with the pairs' names, its placeholders
+     * must be grid parameters, and each of its specs must parse for both players at every grid point
+     * (reported once per strategy, at its line).
+     *
+     * @return the placeholders the set's specs use
+     */
+    private static List<String> strategySet(Experiment.Builder b, Problems problems) {
+        StrategySet set = b.strategySet;
+        List<String> used = new ArrayList<>();
+        if (set == null) {
+            return used;
+        }
+        for (StrategySet.Cell c : set.cells()) {
+            if (b.pairs.stream().anyMatch(p -> p.name().equals(c.pairName()))) {
+                problems.add(c.line(), "strategy_set.matches", "match " + c.pairName() + " has the name of a pair "
+                    + "in pairs: (duplicate case name '" + c.pairName() + "')");
+            }
+        }
+        List<Map<String, Double>> points = Grid.parameterPoints(b.parameters);
+        List<Horizon> hs = b.horizons.isEmpty() ? Collections.singletonList(null) : b.horizons;
+        for (StrategySet.Entry s : set.strategies()) {
+            String field = "strategy_set.strategies." + s.name();
+            boolean defined = true;
+            for (String ph : Grid.placeholders(s.spec())) {
+                used.add(ph);
+                if (ph.equals(Grid.CONTINUATION) && !b.continuation()) {
+                    problems.add(s.line(), field, "uses {continuation} but the grid has no continuation: axis");
+                    defined = false;
+                } else if (!b.parameters.containsKey(ph) && !ph.equals(Grid.CONTINUATION)) {
+                    problems.add(s.line(), field, "uses {" + ph + "} but grid.parameters has no '" + ph + "'"
+                        + Problems.didYouMean(ph, List.copyOf(b.parameters.keySet())));
+                    defined = false;
+                }
+            }
+            if (!defined || b.game == null) {
+                continue;
+            }
+            List<String> seen = new ArrayList<>();
+            List<Horizon> all = new ArrayList<>(hs);
+            set.exactContinuation().forEach(d -> all.add(Horizon.continuation(d)));
+            for (Map<String, Double> point : points) {
+                for (Horizon h : all) {
+                    String spec = Grid.substitute(s.spec(), Grid.withHorizon(point, h));
+                    if (!Grid.placeholders(spec).isEmpty()) {
+                        continue;
+                    }
+                    for (Player player : Player.values()) {
+                        try {
+                            Strategies.parse(spec, b.game, player);
+                        } catch (IllegalArgumentException ex) {
+                            if (!seen.contains(ex.getMessage())) {
+                                seen.add(ex.getMessage());
+                                boolean extra = h instanceof Horizon.Continuation c && !hs.contains(h)
+                                    && set.exactContinuation().contains(c.probability());
+                                problems.add(s.line(), field, ex.getMessage() + (extra ? " (for exact_continuation "
+                                    + ExperimentFile.num(((Horizon.Continuation) h).probability()) + ")" : ""));
+                            }
+                        }
+                    }
+                }
+            }
+        }
+        return used;
     }
 
     /**

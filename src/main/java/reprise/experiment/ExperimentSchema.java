@@ -23,8 +23,9 @@ import reprise.game.StageGame;
 final class ExperimentSchema {
 
     /** The top-level keys, in the order README lists them. */
-    static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "pairs", "grid", "replicates",
-        "seed", "alpha", "tolerance", "burn_in", "snapshots", "quantities", "tests", "correction", "claims", "output");
+    static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "pairs", "strategy_set",
+        "grid", "replicates", "seed", "alpha", "tolerance", "tolerances", "burn_in", "snapshots", "quantities",
+        "derived", "tests", "correction", "claims", "output");
     static final List<String> GRID_KEYS = List.of("noise", "misperception", "rounds", "continuation", "parameters");
     static final List<String> PAIR_KEYS = List.of("name", "x", "y");
     private static final Pattern NAME = Pattern.compile("[A-Za-z0-9][A-Za-z0-9._-]*");
@@ -65,8 +66,13 @@ final class ExperimentSchema {
         s.name();
         s.game();
         s.grid();
-        s.builder.pairs = pairs(s.top.get("pairs"), problems);
+        s.builder.strategySet = StrategySetSection.read(s.top.get("strategy_set"), problems);
+        if (s.top.containsKey("pairs") || !s.top.containsKey("strategy_set")) {
+            s.builder.pairs = pairs(s.top.get("pairs"), problems);
+        }
+        s.builder.derived = DerivedSection.read(s.top.get("derived"), problems);
         s.numbers();
+        s.builder.tolerances = ToleranceSection.read(s.top.get("tolerances"), s.builder.derived, problems);
         s.snapshots();
         s.comparisons();
         s.files(file);
@@ -233,7 +239,7 @@ final class ExperimentSchema {
     private static List<Experiment.Pair> pairs(Node node, Problems problems) {
         List<Experiment.Pair> pairs = new ArrayList<>();
         if (node == null) {
-            problems.add(0, "pairs", "is required: a list of {name, x, y}");
+            problems.add(0, "pairs", "is required: a list of {name, x, y} (or a strategy_set:)");
             return pairs;
         }
         if (!(node instanceof SequenceNode seq) || seq.getValue().isEmpty()) {

@@ -7,13 +7,12 @@ import reprise.game.StageGame;
  * tallied length L. The exact value is w . E[N] / E[L]; the estimate and its standard error follow from
  * the weights alone (see {@link CaseAnalysis}).
  *
- * <p>Extension point: today's quantities are the constants of {@link BaseQuantity}. A derived quantity
- * (a named combination of base quantities) is added as another permitted implementation that computes
- * its weights from the stage game and names itself; every analysis reads only {@link #weights},
- * {@link #label()} and {@link #group()}, so none of them changes. A ratio of two quantities is not of the
- * form w . N / L and would add its own estimate (delta method) to this interface.
+ * <p>Two kinds: the constants of {@link BaseQuantity}, and an experiment's {@link DerivedQuantity}s. A
+ * derived combination of base quantities computes its weights from the stage game and names itself;
+ * every analysis reads only {@link #weights}, {@link #label()} and {@link #group()}. A derived ratio is
+ * not of the form w . N / L: it is analysed by {@link RatioRows} with its own (delta-method) estimate.
  */
-public sealed interface Quantity extends Subject permits BaseQuantity {
+public sealed interface Quantity extends Subject permits BaseQuantity, DerivedQuantity {
 
     /**
      * The weights w over the states CC, CD, DC, DD.

@@ -222,7 +222,8 @@ public final class Runner {
      * @param claims claims by case index, each by the quantity's name in the claims file (may be empty)
      * @return the outcome
      */
-    public static Outcome analyse(Experiment e, List<CaseResult> results, Map<Integer, Map<BaseQuantity, Claims.Claim>> claims) {
+    public static Outcome analyse(Experiment e, List<CaseResult> results,
+        Map<Integer, ? extends Map<? extends Quantity, Claims.Claim>> claims) {
         List<Comparisons.Pending> pending = new ArrayList<>();
         for (CaseResult r : results) {
             pending.addAll(Comparisons.rows(e, r, claims.get(r.c().index())));

@@ -34,6 +34,14 @@ public sealed interface Subject permits Quantity, Subject.Joint, Subject.Snapsho
                 throw new IllegalArgumentException("not a snapshot round: '" + label + "'", e);
             }
         }
+        for (BaseQuantity q : BaseQuantity.values()) {
+            if (q.label().equals(label)) {
+                return q;
+            }
+        }
+        if (DerivedQuantity.NAME.matcher(label).matches()) {
+            return DerivedQuantity.named(label);
+        }
         return BaseQuantity.ofLabel(label);
     }
 

@@ -109,6 +109,86 @@ final class Decimal15 {
         }
     }
 
+    /**
+     * Appends the text of a value as ASCII bytes: the same text as {@link #append(StringBuilder, double)}
+     * (tested on many values), written without a char buffer.
+     *
+     * @param out where to append
+     * @param value any double
+     */
+    static void append(AsciiBuffer out, double value) {
+        if (value == 0) {
+            out.put('0');
+            return;
+        }
+        double v = value;
+        if (!Double.isFinite(v) || !(Math.abs(v) >= 1e-20 && Math.abs(v) < 1e20)) {
+            StringBuilder sb = new StringBuilder(32);
+            append(sb, value);
+            out.put(sb.toString());
+            return;
+        }
+        out.reserve(40);
+        if (v < 0) {
+            out.putUnchecked((byte) '-');
+            v = -v;
+        }
+        int e = (int) Math.floor(Math.getExponent(v) * 0.30102999566398120);
+        long m = Math.round(scale(v, 14 - e));
+        while (m >= HIGH) {
+            e++;
+            m = Math.round(scale(v, 14 - e));
+        }
+        while (m < LOW) {
+            e--;
+            m = Math.round(scale(v, 14 - e));
+        }
+        byte[] d = new byte[15];
+        int hi = (int) (m / 100_000_000L);
+        int lo = (int) (m - hi * 100_000_000L);
+        for (int i = 14; i >= 7; i--) {
+            int q = lo / 10;
+            d[i] = (byte) ('0' + lo - 10 * q);
+            lo = q;
+        }
+        for (int i = 6; i >= 0; i--) {
+            int q = hi / 10;
+            d[i] = (byte) ('0' + hi - 10 * q);
+            hi = q;
+        }
+        int nd = 15;
+        while (nd > 1 && d[nd - 1] == '0') {
+            nd--;
+        }
+        if (e >= -5 && e < 15) {
+            if (e >= 0) {
+                out.putUnchecked(d, 0, Math.min(nd, e + 1));
+                for (int i = nd; i < e + 1; i++) {
+                    out.putUnchecked((byte) '0');
+                }
+                if (nd > e + 1) {
+                    out.putUnchecked((byte) '.');
+                    out.putUnchecked(d, e + 1, nd - e - 1);
+                }
+            } else {
+                out.putUnchecked((byte) '0');
+                out.putUnchecked((byte) '.');
+                for (int i = 0; i < -e - 1; i++) {
+                    out.putUnchecked((byte) '0');
+                }
+                out.putUnchecked(d, 0, nd);
+            }
+        } else {
+            out.putUnchecked(d[0]);
+            if (nd > 1) {
+                out.putUnchecked((byte) '.');
+                out.putUnchecked(d, 1, nd - 1);
+            }
+            out.putUnchecked((byte) 'E');
+            out.put(e);
+        }
+    }
+
     /** v * 10^k with exact powers of ten. */
     private static double scale(double v, int k) {
         if (k >= 0) {

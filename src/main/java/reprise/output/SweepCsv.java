@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.io.OutputStream;
 import java.io.UncheckedIOException;
 import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ExecutionException;
@@ -64,7 +63,7 @@ public final class SweepCsv {
      * @throws UncheckedIOException when writing fails
      */
     public static void write(SweepTable t, Writer out, int threads) {
-        write(t, threads, text -> out.write(text), out::flush);
+        write(t, threads, text -> out.write(text.toString()), out::flush);
     }
 
     /**
@@ -76,12 +75,12 @@ public final class SweepCsv {
      * @throws UncheckedIOException when writing fails
      */
     public static void write(SweepTable t, OutputStream out, int threads) {
-        write(t, threads, text -> out.write(text.getBytes(StandardCharsets.ISO_8859_1)), out::flush);
+        write(t, threads, text -> out.write(text.toByteArray()), out::flush);
     }
 
     /** A sink of text blocks. */
     private interface Sink {
-        void accept(String text) throws IOException;
+        void accept(AsciiBuffer text) throws IOException;
     }
 
     /** A flush action. */
@@ -104,8 +103,10 @@ public final class SweepCsv {
             return th;
         }) : null;
         try {
-            out.accept(String.join(",", header(d)) + "\n");
-            List<Future<String>> pending = new ArrayList<>();
+            AsciiBuffer head = new AsciiBuffer(256);
+            head.put(String.join(",", header(d)) + "\n");
+            out.accept(head);
+            List<Future<AsciiBuffer>> pending = new ArrayList<>();
             for (int b = 0; b < blocks; b++) {
                 int from = b * BLOCK;
                 int to = Math.min(rows, from + BLOCK);
@@ -118,7 +119,7 @@ public final class SweepCsv {
                     }
                 }
             }
-            for (Future<String> f : pending) {
+            for (Future<AsciiBuffer> f : pending) {
                 out.accept(f.get());
             }
             flush.run();
@@ -136,17 +137,18 @@ public final class SweepCsv {
         }
     }
 
-    private static String block(SweepTable t, List<String> co, List<String> lengths, int from, int to) {
-        StringBuilder sb = new StringBuilder((to - from) * 200);
+    private static AsciiBuffer block(SweepTable t, List<String> co, List<String> lengths, int from, int to) {
+        AsciiBuffer sb = new AsciiBuffer((to - from) * 200);
         boolean reactive = t.definition().family().reactive();
         int relations = t.definition().relations().size();
         int last = -1;
-        String entries = "";
+        AsciiBuffer entries = new AsciiBuffer(80);
         for (int r = from; r < to; r++) {
             int s = t.strategy(r);
             if (s != last) {
-                StringBuilder e = new StringBuilder(80);
-                e.append(s).append(',');
+                AsciiBuffer e = new AsciiBuffer(80);
+                e.put(s);
+                e.put(',');
                 if (reactive) {
                     number(e, t.entry(s, 0));
                     number(e, t.entry(s, 1));
@@ -155,11 +157,14 @@ public final class SweepCsv {
                         number(e, t.entry(s, k));
                     }
                 }
-                entries = e.toString();
+                entries = e;
                 last = s;
             }
-            sb.append(entries);
-            sb.append(co.get(t.coPlayer(r))).append(',').append(lengths.get(t.length(r))).append(',');
+            sb.put(entries);
+            sb.put(co.get(t.coPlayer(r)));
+            sb.put(',');
+            sb.put(lengths.get(t.length(r)));
+            sb.put(',');
             for (int k = 0; k < 4; k++) {
                 number(sb, t.frequency(r, k));
             }
@@ -172,17 +177,17 @@ public final class SweepCsv {
                 Decimal15.append(sb, z);
             }
             for (int k = 0; k < relations; k++) {
-                sb.append(',');
+                sb.put(',');
                 Decimal15.append(sb, t.relation(r, k));
             }
-            sb.append(',').append(t.unique(r)).append('\n');
+            sb.put(t.unique(r) ? ",true\n" : ",false\n");
         }
-        return sb.toString();
+        return sb;
     }
 
-    private static void number(StringBuilder sb, double v) {
+    private static void number(AsciiBuffer sb, double v) {
         Decimal15.append(sb, v);
-        sb.append(',');
+        sb.put(',');
     }
 
     private static String quote(String s) {

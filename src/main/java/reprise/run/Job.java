@@ -18,7 +18,7 @@ import reprise.experiment.Runner;
  * @param cases its cases
  * @param claims claims by case index (empty without a claims file)
  */
-public record Job(Path file, Experiment experiment, List<Case> cases, Map<Integer, Map<reprise.experiment.BaseQuantity, Claims.Claim>> claims) {
+public record Job(Path file, Experiment experiment, List<Case> cases, Map<Integer, Map<reprise.experiment.Quantity, Claims.Claim>> claims) {
 
     /** Copies the collections. */
     public Job {
@@ -37,8 +37,8 @@ public record Job(Path file, Experiment experiment, List<Case> cases, Map<Intege
     public static Job load(Path file, int threads) {
         Experiment e = ExperimentFile.read(file);
         List<Case> cases = e.cases();
-        Map<Integer, Map<reprise.experiment.BaseQuantity, Claims.Claim>> claims = e.claims() == null ? Map.of()
-            : Claims.read(e.claims(), e, cases);
+        Map<Integer, Map<reprise.experiment.Quantity, Claims.Claim>> claims = e.claims() == null ? Map.of()
+            : Claims.readAll(e.claims(), e, cases);
         Runner.preflight(e, cases, threads);
         return new Job(file, e, cases, claims);
     }

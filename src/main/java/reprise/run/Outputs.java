@@ -24,6 +24,7 @@ import reprise.output.Plotter;
 import reprise.output.Provenance;
 import reprise.output.Report;
 import reprise.output.ResultsCsv;
+import reprise.output.SetOutputs;
 import reprise.sim.SimulationResult;
 import reprise.sim.Simulator;
 
@@ -183,6 +184,8 @@ final class Outputs {
         if (java.nio.file.Files.isRegularFile(manifest)) {
             outputs.add(dir.toAbsolutePath().relativize(manifest.toAbsolutePath()).toString());
         }
+        SetOutputs.write(dir, e, results, outcome.rows())
+            .forEach(f -> outputs.add(dir.toAbsolutePath().relativize(f.toAbsolutePath()).toString()));
         Provenance.write(dir.resolve("run.json"), new Provenance.Run(version, settings.commandLine(), job.file(),
             e.sha256(), e.claims(), e.claims() == null ? null : RunIdentity.sha256(e.claims()), e.seed(),
             Simulator.GENERATOR, "case i: SplitMix64(seed + (i+1) * 0x9E3779B97F4A7C15); game g of a case: the "

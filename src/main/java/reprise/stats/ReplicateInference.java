@@ -87,6 +87,50 @@ public final class ReplicateInference {
     }
 
     /**
+     * The ratio estimate of E[a . N] / E[b . N] from G games: R = sum_g (a . N_g) / sum_g (b . N_g), with
+     * the delta-method standard error se^2 = sum_g (A_g - R B_g)^2 / (G (G - 1) Bbar^2) (A_g = a . N_g,
+     * B_g = b . N_g, Bbar = sum_g B_g / G) and G - 1 degrees of freedom. With b = (1, 1, 1, 1) this is
+     * {@link #mean}. The sums are formed exactly, as in {@link #mean}; the cross sum uses
+     * 2 sum A B = sum (A + B)^2 - sum A^2 - sum B^2, exact in decimal arithmetic.
+     *
+     * <p>References: Cochran, W.G. (1977). Sampling Techniques, 3rd ed. Wiley, ch. 6.
+     *
+     * @param summary the sufficient statistics of G &ge; 2 games
+     * @param a the numerator's weights, order CC, CD, DC, DD
+     * @param b the denominator's weights
+     * @return the estimate
+     * @throws IllegalArgumentException if fewer than 2 games, a weight is not finite, or sum_g B_g is 0 (the
+     *     ratio is undefined)
+     */
+    public static Estimate ratio(GameSummary summary, double[] a, double[] b) {
+        double[] wa = Checks.finiteVector("numerator weights", a, 4);
+        double[] wb = Checks.finiteVector("denominator weights", b, 4);
+        long g = summary.games();
+        if (g < 2) {
+            throw new IllegalArgumentException("a replicate standard error needs at least 2 games: " + g);
+        }
+        double[] sum = new double[4];
+        for (int s = 0; s < 4; s++) {
+            sum[s] = wa[s] + wb[s];
+        }
+        BigDecimal[] sa = summary.linearSums(wa);
+        BigDecimal[] sb = summary.linearSums(wb);
+        BigDecimal[] ss = summary.linearSums(sum);
+        BigDecimal sab2 = ss[1].subtract(sa[1]).subtract(sb[1]);
+        if (sb[0].signum() == 0) {
+            throw new IllegalArgumentException("the ratio's denominator is 0 in every game: the ratio is undefined");
+        }
+        // q = sum (A - R B)^2 * (sum B)^2 = sAA sB^2 - 2 sA sAB sB + sA^2 sBB, with 2 sAB = sab2
+        BigDecimal q = sa[1].multiply(sb[0]).multiply(sb[0]).subtract(sa[0].multiply(sab2).multiply(sb[0]))
+            .add(sa[0].multiply(sa[0]).multiply(sb[1]));
+        BigDecimal sb2 = sb[0].multiply(sb[0]);
+        BigDecimal variance = q.multiply(BigDecimal.valueOf(g))
+            .divide(BigDecimal.valueOf(g - 1).multiply(sb2).multiply(sb2), MathContext.DECIMAL64);
+        double value = sa[0].divide(sb[0], MathContext.DECIMAL64).doubleValue();
+        return new Estimate(value, Math.sqrt(Math.max(0, variance.doubleValue())), g - 1, g);
+    }
+
+    /**
      * The frequency of one state: w = indicator of the state.
      *
      * @param summary the games (G &ge; 2)
