@@ -5,14 +5,11 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 import reprise.output.CurvesCsv;
 import reprise.output.Plotter;
-import reprise.output.figures.FigureFormat;
-import reprise.output.figures.FigureSize;
 import reprise.output.figures.Figures;
 
 /** {@code plot}: redraws the figures of a results folder from its curves.csv, without simulating again. */
@@ -27,18 +24,8 @@ final class PlotCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "RESULTS_DIR", description = "A folder written by check.")
     Path dir;
 
-    @Option(names = "--figure-size", paramLabel = "SIZE", defaultValue = "single",
-        description = "Printed size: single (8.5 cm wide), double (17.5 cm) or WIDTHxHEIGHT in cm, e.g. 12x8 "
-            + "(default: ${DEFAULT-VALUE}).")
-    String figureSize;
-
-    @Option(names = "--figure-format", paramLabel = "FORMAT", split = ",", defaultValue = "png,svg,pdf",
-        description = "File formats, comma-separated: png, svg, pdf, eps (default: ${DEFAULT-VALUE}).")
-    List<String> figureFormats;
-
-    @Option(names = "--dpi", paramLabel = "DPI", defaultValue = "300",
-        description = "PNG resolution in dots per inch, 72 to 1200 (default: ${DEFAULT-VALUE}).")
-    int dpi;
+    @picocli.CommandLine.Mixin
+    FigureOptions figureOptions = new FigureOptions();
 
     @Override
     public Integer call() {
@@ -48,12 +35,16 @@ final class PlotCommand implements Callable<Integer> {
             throw new IllegalArgumentException(dir + " is not a results folder: no curves.csv (from check) or "
                 + "calibration.csv (from calibrate --out) in it");
         }
+        Figures figures = figureOptions.figures();
         List<Plotter.Drawn> drawn = new java.util.ArrayList<>();
-        if (Files.isRegularFile(curves)) {
-            drawn.addAll(Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures"), figures()));
-        }
         if (Files.isRegularFile(calibration)) {
-            drawn.add(Plotter.drawCalibration(calibration, dir.resolve("figures")));
+            drawn.add(Plotter.drawCalibration(calibration, dir.resolve("figures"), figures));
+        }
+        if (Files.isRegularFile(curves)) {
+            drawn.addAll(0, Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures"), figures, figureOptions.axis(),
+                drawn));
+        } else {
+            Plotter.manifest(dir.resolve("figures"), figures, drawn);
         }
         for (Plotter.Drawn d : drawn) {
             d.result().files().forEach(f -> spec.commandLine().getOut().println(f));
@@ -61,11 +52,5 @@ final class PlotCommand implements Callable<Integer> {
                 + "): " + n));
         }
         return Main.OK;
-    }
-
-    private Figures figures() {
-        List<FigureFormat> formats = figureFormats.stream().map(FigureFormat::parse).toList();
-        return Figures.withDefaults().withSize(FigureSize.parse(figureSize)).withDpi(dpi)
-            .withFormats(formats.get(0), formats.subList(1, formats.size()).toArray(FigureFormat[]::new));
     }
 }

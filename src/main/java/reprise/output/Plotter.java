@@ -12,6 +12,7 @@ import reprise.experiment.FigureKind;
 import reprise.experiment.TestId;
 import reprise.game.State;
 import reprise.output.figures.CalibrationData;
+import reprise.output.figures.ContinuationAxis;
 import reprise.output.figures.ConvergenceData;
 import reprise.output.figures.Curve;
 import reprise.output.figures.ErrorScalingData;
@@ -68,6 +69,21 @@ public final class Plotter {
      * @return what was drawn (or not drawn, with no files), in order
      */
     public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures) {
+        return draw(points, directory, figures, ContinuationAxis.PROBABILITY, List.of());
+    }
+
+    /**
+     * Draws all figures; see {@link #draw(List, Path)}.
+     *
+     * @param points the points
+     * @param directory where the figures go
+     * @param figures the figure settings
+     * @param axis what the x-axis of payoff-against-continuation figures shows
+     * @param more figures drawn elsewhere (for example the calibration figure) to list in the manifest too
+     * @return what was drawn (or not drawn, with no files), in order, without {@code more}
+     */
+    public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures, ContinuationAxis axis,
+        List<Drawn> more) {
         Map<FigureKind, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
         for (Curves.Point p : points) {
             byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
@@ -89,7 +105,7 @@ public final class Plotter {
                 r = switch (figure) {
                     case CONVERGENCE -> convergence(figures, directory, base, pts);
                     case ERROR -> error(figures, directory, base, pts);
-                    case PAYOFF -> payoff(figures, directory, base, pts);
+                    case PAYOFF -> payoff(figures, directory, base, pts, axis);
                     case DISTRIBUTION -> distribution(figures, directory, base, pts);
                     case DEVIATION -> deviation(shared, directory, base, pts);
                     case VERDICTS -> verdicts(figures, directory, base, pts);
@@ -103,9 +119,23 @@ public final class Plotter {
             }
             return r == null ? null : new Drawn(figure, group, r);
         }).filter(java.util.Objects::nonNull).toList();
-        FigureManifest.write(directory, figures, out.stream()
-            .map(d -> new FigureManifest.Entry(d.kind().label(), d.group(), d.result())).toList());
+        List<Drawn> all = new ArrayList<>(out);
+        all.addAll(more);
+        manifest(directory, figures, all);
         return out;
+    }
+
+    /**
+     * Writes figures/manifest.csv for the given figures.
+     *
+     * @param directory the figures' folder
+     * @param figures the settings they were drawn with
+     * @param drawn the figures
+     * @return the manifest's path
+     */
+    public static Path manifest(Path directory, Figures figures, List<Drawn> drawn) {
+        return FigureManifest.write(directory, figures, drawn.stream()
+            .map(d -> new FigureManifest.Entry(d.kind().label(), d.group(), d.result())).toList());
     }
 
     /** One figure to draw, named before drawing so that names do not depend on timing. */
@@ -132,6 +162,19 @@ public final class Plotter {
      * @return what was drawn
      */
     public static Drawn drawCalibration(Path calibrationCsv, Path directory) {
+        return drawCalibration(calibrationCsv, directory, Figures.withDefaults());
+    }
+
+    /**
+     * Draws the p-value calibration figure with the given settings; see {@link #drawCalibration(Path, Path)}.
+     * The caller lists it in the manifest ({@link #manifest}).
+     *
+     * @param calibrationCsv the file
+     * @param directory where the figure goes
+     * @param figures the figure settings
+     * @return what was drawn
+     */
+    public static Drawn drawCalibration(Path calibrationCsv, Path directory, Figures figures) {
         Map<String, List<Double>> byTest = new LinkedHashMap<>();
         try (java.io.Reader r = java.nio.file.Files.newBufferedReader(calibrationCsv);
              org.apache.commons.csv.CSVParser p = org.apache.commons.csv.CSVFormat.DEFAULT.builder().setHeader()
@@ -156,7 +199,7 @@ public final class Plotter {
         List<PValueSample> samples = new ArrayList<>();
         byTest.forEach((name, ps) -> samples.add(new PValueSample(name, ps.stream().mapToDouble(Double::doubleValue)
             .toArray())));
-        FigureResult result = Figures.withDefaults().pValueCalibration(directory, "calibration-qq",
+        FigureResult result = figures.pValueCalibration(directory, "calibration-qq",
             new CalibrationData("", samples));
         return new Drawn(FigureKind.CALIBRATION, "p-values against uniform quantiles", result);
     }
@@ -208,17 +251,42 @@ public final class Plotter {
             se.isEmpty() ? null : new Curve(xs(se), ys(se))));
     }
 
-    private static FigureResult payoff(Figures f, Path dir, String base, List<Curves.Point> pts) {
-        List<Curves.Point> ex = series(pts, "X exact");
-        List<Curves.Point> ey = series(pts, "Y exact");
-        if (ex.isEmpty()) {
+    /** A payoff series name: the player ("X" or "Y"), its strategy in brackets if known, and what it is. */
+    private static final java.util.regex.Pattern PAYOFF_SERIES = java.util.regex.Pattern.compile(
+        "([XY])(?: \\((.*)\\))? (exact|simulated|stationary|claimed)");
+
+    private static FigureResult payoff(Figures f, Path dir, String base, List<Curves.Point> pts,
+        ContinuationAxis axis) {
+        Map<String, List<Curves.Point>> by = new LinkedHashMap<>();
+        String[] names = {"X", "Y"};
+        for (Curves.Point p : pts) {
+            java.util.regex.Matcher m = PAYOFF_SERIES.matcher(p.series());
+            if (!m.matches()) {
+                continue;
+            }
+            by.computeIfAbsent(m.group(1) + " " + m.group(3), k -> new ArrayList<>()).add(p);
+            if (m.group(2) != null) {
+                names[m.group(1).equals("X") ? 0 : 1] = m.group(1) + " = " + m.group(2);
+            }
+        }
+        List<Curves.Point> ex = by.getOrDefault("X exact", List.of());
+        List<Curves.Point> ey = by.getOrDefault("Y exact", List.of());
+        if (ex.isEmpty() || ey.isEmpty()) {
             return null;
         }
-        List<Curves.Point> sx = series(pts, "X simulated");
-        List<Curves.Point> sy = series(pts, "Y simulated");
-        return f.payoffByContinuation(dir, base, new PayoffData("", "payoff per round, E[total] / E[length]",
+        List<Curves.Point> sx = by.getOrDefault("X simulated", List.of());
+        List<Curves.Point> sy = by.getOrDefault("Y simulated", List.of());
+        List<Curves.Point> stx = by.getOrDefault("X stationary", List.of());
+        List<Curves.Point> sty = by.getOrDefault("Y stationary", List.of());
+        List<Curves.Point> cx = by.getOrDefault("X claimed", List.of());
+        List<Curves.Point> cy = by.getOrDefault("Y claimed", List.of());
+        PayoffData data = new PayoffData("", "payoff per round, E[total] / E[length]",
             new Curve(xs(ex), ys(ex)), new Curve(xs(ey), ys(ey)), sx.isEmpty() ? null : estimates(sx),
-            sy.isEmpty() ? null : estimates(sy)).withNames(ex.get(0).group(), "X", "Y"));
+            sy.isEmpty() ? null : estimates(sy)).withNames(ex.get(0).group(), names[0], names[1])
+            .withStationary(stx.isEmpty() ? Double.NaN : stx.get(0).y(), sty.isEmpty() ? Double.NaN : sty.get(0).y())
+            .withClaims(cx.isEmpty() ? null : new Curve(xs(cx), ys(cx)), cy.isEmpty() ? null : new Curve(xs(cy), ys(cy)))
+            .withAxis(axis);
+        return f.payoffByContinuation(dir, base, data);
     }
 
     private static FigureResult distribution(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -262,7 +330,7 @@ public final class Plotter {
             v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = p.value();
         }
         return f.valueHeatmap(dir, base, new GridValues("", new GridAxes("execution error", g.xLabels(),
-            horizonTitle(g), g.yLabels()), "|observed - stationary| payoff of X", v));
+            horizonTitle(g, pts), g.yLabels()), pts.get(0).series(), v));
     }
 
     private static FigureResult verdicts(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -275,11 +343,16 @@ public final class Plotter {
             v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = (int) p.value();
         }
         return f.verdictHeatmap(dir, base, new GridVerdicts("", new GridAxes("execution error", g.xLabels(),
-            horizonTitle(g), g.yLabels()), List.of("agrees", "inconclusive", "disagrees"), v));
+            horizonTitle(g, pts), g.yLabels()), List.of("agrees", "inconclusive", "disagrees"), v));
     }
 
-    /** The heatmaps' y-axis: game lengths are whole numbers of rounds, continuation probabilities lie below 1. */
-    private static String horizonTitle(Grid g) {
-        return g.ys().stream().allMatch(y -> y < 1) ? "continuation probability \u03b4" : "game length (rounds)";
+    /**
+     * The heatmaps' y-axis, from the points' horizon kind; files without it (blank) fall back to the values:
+     * game lengths are whole numbers of rounds, continuation probabilities lie below 1.
+     */
+    private static String horizonTitle(Grid g, List<Curves.Point> pts) {
+        String kind = pts.get(0).horizon();
+        boolean continuation = kind.isEmpty() ? g.ys().stream().allMatch(y -> y < 1) : kind.equals(Curves.CONTINUATION);
+        return continuation ? "continuation probability \u03b4" : "game length (rounds)";
     }
 }

@@ -83,7 +83,8 @@ final class Outputs {
         List<Case> cases = results.stream().map(CaseResult::c).toList();
         List<Curves.Point> points = Curves.of(e, results, outcome.rows(), 1 - e.alpha());
         CurvesCsv.write(dir.resolve("curves.csv"), points);
-        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"));
+        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"),
+            settings.figures(), settings.continuationAxis(), List.of());
         ResultsCsv.write(dir.resolve("results.csv"), cases, params, outcome.rows());
         CasesCsv.write(dir.resolve("cases.csv"), params, results);
         Instant end = Instant.now();
@@ -94,6 +95,7 @@ final class Outputs {
         for (Plotter.Drawn d : drawn) {
             d.result().files().forEach(f -> outputs.add(dir.toAbsolutePath().relativize(f.toAbsolutePath()).toString()));
         }
+        outputs.add("figures/" + reprise.output.figures.FigureManifest.FILE_NAME);
         Provenance.write(dir.resolve("run.json"), new Provenance.Run(version, settings.commandLine(), job.file(),
             e.sha256(), e.claims(), e.claims() == null ? null : RunIdentity.sha256(e.claims()), e.seed(),
             Simulator.GENERATOR, "case i: SplitMix64(seed + (i+1) * 0x9E3779B97F4A7C15); game g of a case: the "
