@@ -94,7 +94,7 @@ public final class Report {
         sb.append("|---|---|---|---|---|---|---|---|\n");
         disagreeing.forEach(r -> sb.append("| ").append(r.caseId()).append(" | ").append(r.subject().label())
             .append(" | ").append(r.comparisonKind().label()).append(" | ").append(num(r.predicted())).append(" | ")
-            .append(num(r.observed())).append(" | ").append(interval(r)).append(" | ").append(num(r.adjustedP()))
+            .append(num(r.observed())).append(" | ").append(interval(r)).append(" | ").append(pValue(r.adjustedP()))
             .append(" | ").append(cell(r.note())).append(" |\n"));
         sb.append('\n');
     }
@@ -306,7 +306,7 @@ public final class Report {
 
     private static String testCell(List<ResultRow> rows, Subject subject) {
         return rows.stream().filter(r -> r.subject().equals(subject)).findFirst()
-            .map(r -> num(r.adjustedP()) + " " + r.verdict().word()).orElse("");
+            .map(r -> pValue(r.adjustedP()) + " " + r.verdict().word()).orElse("");
     }
 
     private static boolean counts(ResultRow r) {
@@ -347,6 +347,25 @@ public final class Report {
 
     private static String cell(String s) {
         return s == null ? "" : s.replace("|", "\\|").replace("\n", " ");
+    }
+
+    /** Below this a p-value is written as "&lt; 1e-300" in report.md and on stdout. */
+    public static final double SMALLEST_P_SHOWN = 1e-300;
+
+    /**
+     * A p-value for people: NaN as empty, values below {@link #SMALLEST_P_SHOWN} (0 included, which
+     * only means the survival function underflowed near the floating-point limit of about 2.2e-308) as
+     * "&lt; 1e-300", others as {@link #num}. results.csv keeps the computed number, so that it stays
+     * machine-readable.
+     *
+     * @param p the p-value
+     * @return the text
+     */
+    public static String pValue(double p) {
+        if (Double.isNaN(p)) {
+            return "";
+        }
+        return p < SMALLEST_P_SHOWN ? "< 1e-300" : num(p);
     }
 
     static String num(double v) {
