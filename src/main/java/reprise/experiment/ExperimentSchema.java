@@ -329,8 +329,10 @@ final class ExperimentSchema {
             }
             builder.claims = claims;
         }
+        // a path written in the file is relative to the file (like claims:); the default, which the file does
+        // not mention, is relative to the working directory, as is --out
         String outText = YamlReader.string(top, "output", null, problems);
-        builder.output = Path.of(outText != null ? outText
-            : "results/" + (builder.name == null ? "experiment" : builder.name));
+        builder.output = outText != null ? base.resolve(outText).normalize()
+            : Path.of("results/" + (builder.name == null ? "experiment" : builder.name));
     }
 }

@@ -52,7 +52,7 @@ class ExperimentFileTest {
         Experiment e = ExperimentFile.read(write("ok.yaml", VALID));
         assertEquals("sweep", e.name());
         assertEquals(500, e.replicates());
-        assertEquals(Path.of("results/sweep"), e.output());
+        assertEquals(Path.of("results/sweep"), e.output(), "the default is relative to the working directory");
         List<Case> cases = e.cases();
         // keepers: 2 noise x 2 rounds; extorted: 2 chi x 2 noise x 2 rounds
         assertEquals(4 + 8, cases.size());
@@ -170,5 +170,19 @@ class ExperimentFileTest {
         ex = assertThrows(InvalidExperimentException.class, () -> Claims.read(noPair, e, cases));
         assertTrue(ex.getMessage().contains("pair: column is missing"), ex.getMessage());
         assertTrue(ex.getMessage().contains("CX: unknown column"), ex.getMessage());
+    }
+
+    /** output: is relative to the experiment file, like claims: (a file in another folder writes beside itself). */
+    @Test
+    void outputIsRelativeToTheExperimentFile() throws IOException {
+        Path sub = Files.createDirectories(dir.resolve("studies"));
+        Path file = sub.resolve("rel.yaml");
+        Files.writeString(file, VALID + "output: out/rel\n");
+        assertEquals(sub.toAbsolutePath().resolve("out/rel").normalize(), ExperimentFile.read(file).output());
+        Files.writeString(file, VALID + "output: ../elsewhere\n");
+        assertEquals(dir.toAbsolutePath().resolve("elsewhere").normalize(), ExperimentFile.read(file).output());
+        Path absolute = dir.toAbsolutePath().resolve("abs");
+        Files.writeString(file, VALID + "output: " + absolute + "\n");
+        assertEquals(absolute, ExperimentFile.read(file).output());
     }
 }
