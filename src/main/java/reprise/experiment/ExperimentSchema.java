@@ -267,7 +267,8 @@ final class ExperimentSchema {
         if (name != null) {
             names.add(name);
         }
-        return name != null && x != null && y != null ? new Experiment.Pair(name, x, y, YamlReader.line(item)) : null;
+        return name != null && x != null && y != null ? new Experiment.Pair(name, x, y, YamlReader.line(item),
+            YamlReader.line(f.get("x")), YamlReader.line(f.get("y"))) : null;
     }
 
     private void numbers() {

@@ -119,6 +119,10 @@ class ExperimentFileTest {
             Arguments.of(VALID.replace("name: extorted", "name: keepers"), ":6: pairs.name: duplicate case name 'keepers'"),
             Arguments.of(VALID.replace("chi: [2, 3]", "chj: [2, 3]"), "uses {chi} but grid.parameters has no 'chi'"),
             Arguments.of(VALID.replace("y: gtft", "y: gtfx"), ":5: pairs.keepers.y: unknown strategy 'gtfx'"),
+            // a pair written over several lines: the problem is on the field's line, not the "- name:" line (6)
+            Arguments.of(VALID.replace("    y: wsls", "    y: wslz"), ":8: pairs.extorted.y: unknown strategy 'wslz'"),
+            Arguments.of(VALID.replace("chi={chi},phi=0.05", "chi=0.5,phi=0.05"), ":7: pairs.extorted.x: chi must be"),
+            Arguments.of(VALID.replace("chi: [2, 3]", "chj: [2, 3]"), ":7: pairs.extorted: uses {chi}"),
             Arguments.of(VALID.replace("chi: [2, 3]", "chi: [0.5]"), "pairs.extorted.x: chi must be"),
             Arguments.of(VALID.replace("game: pd:3,0,5,1", "game: pd:3,0,2,1"), ":3: game: a prisoner's dilemma needs"),
             Arguments.of(VALID.replace("snapshots: [1, 10]", "snapshots: [1, 60]"), "round 60 is past the end"),
