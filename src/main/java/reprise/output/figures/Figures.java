@@ -182,6 +182,8 @@ public final class Figures {
                 Palette.STATES[s], Plot.MARKERS[s]);
         }
         addKeys(plot, anchors, "exact", "stationary");
+        plot.xTicksAt(data.simulated().stream().flatMapToDouble(e -> java.util.Arrays.stream(e.x())).distinct()
+            .toArray());
         return finish(plot, directory, baseName);
     }
 
@@ -250,6 +252,7 @@ public final class Figures {
                 data.exactBias().y(), Palette.VERMILLION, Plot.SOLID);
         }
         plot.estimates("observed error", "observed error", data.observed(), Palette.BLUE, Plot.MARKERS[0]);
+        plot.xTicksAt(data.observed().x());
         return finish(plot, directory, baseName);
     }
 
@@ -323,6 +326,9 @@ public final class Figures {
             plot.key("exact", Palette.BLACK, Plot.SOLID, kx, ky);
             if (stationary) {
                 plot.key("\u03b4 \u2192 1", Palette.BLACK, Plot.DASHED, kx, ky);
+            }
+            if (lengths && data.simulatedX() != null) {
+                plot.xTicksAt(expectedLengths(data.simulatedX().x()));
             }
             if (claimX != null || claimY != null) {
                 double[] at = claimX != null ? claimX : claimY;

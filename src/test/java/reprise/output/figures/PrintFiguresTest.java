@@ -66,6 +66,25 @@ class PrintFiguresTest {
         return out.stream();
     }
 
+    /**
+     * A log axis over game lengths labels the grid's lengths, not only the decades (XChart labels decades
+     * only; the lengths here are 10, 20, 50, ..., 10000; 5000 would touch the wider "10000" and is left unlabelled).
+     */
+    @org.junit.jupiter.api.Test
+    void logAxesLabelTheGridLengths() throws IOException {
+        FigureResult r = Figures.withDefaults().withSize(FigureSize.DOUBLE_COLUMN).withFormats(FigureFormat.SVG)
+            .convergence(dir, "lengths", SampleData.convergence(1));
+        String svg = Files.readString(r.files().get(0));
+        List<String> texts = new ArrayList<>();
+        Matcher m = TEXT.matcher(svg);
+        while (m.find()) {
+            texts.add(m.group(2));
+        }
+        for (String length : List.of("10", "20", "50", "100", "200", "500", "1000", "2000", "10000")) {
+            assertTrue(texts.contains(length), "tick label " + length + " missing: " + texts);
+        }
+    }
+
     /** Two pairs' payoff figures side by side, with panel letters, at double-column width. */
     @org.junit.jupiter.api.Test
     void panelsCarryLettersAndKeepTheMinimumTextSize() throws IOException {
