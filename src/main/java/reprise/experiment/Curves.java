@@ -29,7 +29,7 @@ import reprise.stats.WilsonInterval;
 public final class Curves {
 
     /** The series of the deviation heatmap: the exact bias of the stationary payoff at each cell's horizon. */
-    public static final String DEVIATION_SERIES = "|exact \u2212 stationary| payoff of X (bias of the horizon)";
+    public static final String DEVIATION_SERIES = "exact bias of X's payoff";
 
     /** Points of the dense exact curves between the shortest and the longest game. */
     static final int DENSE = 60;

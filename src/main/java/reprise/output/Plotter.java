@@ -246,7 +246,7 @@ public final class Plotter {
             return null;
         }
         List<Curves.Point> se = series(pts, "exact standard error");
-        return f.errorScaling(dir, base, new ErrorScalingData("", sim.get(0).group(), "payoff of X per round",
+        return f.errorScaling(dir, base, new ErrorScalingData("", sim.get(0).group(), "payoff of X",
             estimates(sim), bias.isEmpty() ? null : new Curve(xs(bias), ys(bias)),
             se.isEmpty() ? null : new Curve(xs(se), ys(se))));
     }

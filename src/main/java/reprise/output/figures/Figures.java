@@ -240,11 +240,12 @@ public final class Figures {
         check(directory, baseName, data);
         Plot plot = new Plot(style, data.title(), "game length n (rounds)",
             "|observed \u2212 stationary|, " + data.quantity(), AxisScale.LOG, AxisScale.LOG);
-        // errors fall with n: the lower left corner is where the data is not
-        plot.legend(Styler.LegendPosition.InsideSW);
+        // below the axes, stacked: inside, the legend would hide markers or error bars wherever it went
+        plot.legend(Styler.LegendPosition.OutsideS);
+        plot.chart().getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
         plot.heading(data.subject());
         if (data.exactStandardError() != null) {
-            plot.curve("exact standard error (sampling alone)", "exact standard error",
+            plot.curve("exact standard error", "exact standard error",
                 data.exactStandardError().x(), data.exactStandardError().y(), Palette.BLACK, Plot.DASHED);
         }
         if (data.exactBias() != null) {

@@ -45,7 +45,7 @@ class PrintFiguresTest {
             out.add(Arguments.of(size, "convergence", List.of("CC", "CD", "DC", "DD", "exact", "stationary",
                 "TFT vs WSLS, noise=0.05"), (BiFunction<Figures, Path, FigureResult>) (f, d) ->
                 f.convergence(d, "convergence", withSubject(SampleData.convergence(1)))));
-            out.add(Arguments.of(size, "error", List.of("observed error", "exact standard error (sampling alone)"),
+            out.add(Arguments.of(size, "error", List.of("observed error", "exact standard error"),
                 (BiFunction<Figures, Path, FigureResult>) (f, d) -> f.errorScaling(d, "error", errorWithSe())));
             out.add(Arguments.of(size, "payoff", List.of("TFT", "ALLD", "exact"),
                 (BiFunction<Figures, Path, FigureResult>) (f, d) -> f.payoffByContinuation(d, "payoff",
