@@ -30,10 +30,13 @@ class FigureDataTest {
         return Main.run(args, new PrintWriter(new StringWriter()), new PrintWriter(new StringWriter()));
     }
 
-    private List<Curves.Point> check(String name, String yaml) throws IOException {
+    private List<Curves.Point> check(String name, String yaml, String... options) throws IOException {
         Path file = dir.resolve(name + ".yaml");
         Files.writeString(file, yaml);
-        int code = run("check", file.toString(), "--out", dir.resolve(name).toString(), "--quiet", "--threads", "1");
+        List<String> args = new java.util.ArrayList<>(List.of("check", file.toString(), "--out",
+            dir.resolve(name).toString(), "--quiet", "--threads", "1"));
+        args.addAll(List.of(options));
+        int code = run(args.toArray(String[]::new));
         assertTrue(code == 0 || code == 1, "check ran: exit " + code);
         return CurvesCsv.read(dir.resolve(name).resolve("curves.csv"));
     }
@@ -86,7 +89,8 @@ class FigureDataTest {
     void payoffFigureIsDenseNamedWithStationaryReferenceAndHeatmapShowsTheExactBias() throws IOException {
         List<Curves.Point> pts = check("geo", String.join("\n",
             "experiment: geo", "game: 3,0,5,1", "pairs:", "  - {name: mixed, x: tft, y: wsls}",
-            "grid:", "  noise: [0.05, 0.1]", "  continuation: [0.5, 0.9]", "replicates: 200", "seed: 12", ""));
+            "grid:", "  noise: [0.05, 0.1]", "  continuation: [0.5, 0.9]", "replicates: 200", "seed: 12", ""),
+            "--figure-size", "double", "--figure-format", "svg");
         String group = "mixed, noise=0.05";
         List<Curves.Point> exact = pts.stream().filter(q -> q.figure() == FigureKind.PAYOFF && q.group().equals(group)
             && q.series().equals("X (tft) exact")).toList();
@@ -123,5 +127,14 @@ class FigureDataTest {
         String verdictSvg = Files.readString(figures.resolve("verdicts-mixed.svg"));
         assertTrue(verdictSvg.contains("continuation probability"), "continuation grid labelled as such");
         assertFalse(verdictSvg.contains("game length"), "no game-length axis for a continuation grid");
+        // check's figure options: SVG only, at double-column size, as the manifest says
+        try (java.util.stream.Stream<Path> files = Files.list(figures)) {
+            assertTrue(files.map(p -> p.getFileName().toString()).allMatch(n -> n.endsWith(".svg")
+                || n.equals("manifest.csv")), "only SVG files");
+        }
+        assertTrue(payoffSvg.contains("width=\"17.5cm\""), "double-column width");
+        List<String> manifest = Files.readAllLines(figures.resolve("manifest.csv"));
+        assertTrue(manifest.size() > 1 && manifest.stream().skip(1).allMatch(l -> l.contains(",svg,double,17.5,")),
+            String.join("\n", manifest));
     }
 }
