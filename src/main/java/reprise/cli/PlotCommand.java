@@ -27,6 +27,10 @@ final class PlotCommand implements Callable<Integer> {
     @picocli.CommandLine.Mixin
     FigureOptions figureOptions = new FigureOptions();
 
+    @picocli.CommandLine.Option(names = "--panels", description = "Also combine the pairs of each figure kind into "
+        + "one file with lettered panels (KIND-panels.png and so on; 2 to 12 panels).")
+    boolean panels;
+
     @Override
     public Integer call() {
         Path curves = dir.resolve("curves.csv");
@@ -42,7 +46,7 @@ final class PlotCommand implements Callable<Integer> {
         }
         if (Files.isRegularFile(curves)) {
             drawn.addAll(0, Plotter.draw(CurvesCsv.read(curves), dir.resolve("figures"), figures, figureOptions.axis(),
-                drawn));
+                panels ? Plotter.Panels.ALSO_COMBINED : Plotter.Panels.SEPARATE, drawn));
         } else {
             Plotter.manifest(dir.resolve("figures"), figures, drawn);
         }

@@ -84,6 +84,33 @@ public final class Plotter {
      */
     public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures, ContinuationAxis axis,
         List<Drawn> more) {
+        return draw(points, directory, figures, axis, Panels.SEPARATE, more);
+    }
+
+    /** Whether the figures of several pairs are also combined into one file per figure kind. */
+    public enum Panels {
+        /** One file per figure and group. */
+        SEPARATE,
+        /**
+         * Also one file per figure kind with two or more groups (up to 12), the groups as panels (a), (b), ...
+         * in the order of the separate files, named {@code KIND-panels}.
+         */
+        ALSO_COMBINED
+    }
+
+    /**
+     * Draws all figures, optionally also combined into panels; see {@link #draw(List, Path)}.
+     *
+     * @param points the points
+     * @param directory where the figures go
+     * @param figures the figure settings
+     * @param axis what the x-axis of payoff-against-continuation figures shows
+     * @param panels whether to combine the groups of each figure kind into panels too
+     * @param more figures drawn elsewhere (for example the calibration figure) to list in the manifest too
+     * @return what was drawn (or not drawn, with no files), in order, without {@code more}
+     */
+    public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures, ContinuationAxis axis,
+        Panels panels, List<Drawn> more) {
         Map<FigureKind, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
         for (Curves.Point p : points) {
             byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
@@ -118,7 +145,10 @@ public final class Plotter {
                 r = new FigureResult(List.of(), List.of("not drawn: " + ex.getMessage()));
             }
             return r == null ? null : new Drawn(figure, group, r);
-        }).filter(java.util.Objects::nonNull).toList();
+        }).filter(java.util.Objects::nonNull).collect(java.util.stream.Collectors.toCollection(ArrayList::new));
+        if (panels == Panels.ALSO_COMBINED) {
+            out.addAll(combined(jobs, out, directory, figures, shared, axis, taken));
+        }
         List<Drawn> all = new ArrayList<>(out);
         all.addAll(more);
         manifest(directory, figures, all);
@@ -136,6 +166,42 @@ public final class Plotter {
     public static Path manifest(Path directory, Figures figures, List<Drawn> drawn) {
         return FigureManifest.write(directory, figures, drawn.stream()
             .map(d -> new FigureManifest.Entry(d.kind().label(), d.group(), d.result())).toList());
+    }
+
+    /** One file per figure kind whose separately drawn groups number 2 to 12, the groups as lettered panels. */
+    private static List<Drawn> combined(List<Job> jobs, List<Drawn> drawn, Path directory, Figures figures,
+        Figures shared, ContinuationAxis axis, java.util.Set<String> taken) {
+        List<Drawn> out = new ArrayList<>();
+        for (FigureKind kind : FigureKind.values()) {
+            List<Job> ok = jobs.stream().filter(j -> j.figure() == kind && drawn.stream().anyMatch(d -> d.kind() == kind
+                && d.group().equals(j.group()) && !d.result().files().isEmpty())).toList();
+            if (ok.size() < 2 || ok.size() > 12) {
+                continue;
+            }
+            List<java.util.function.Function<Figures, FigureResult>> cells = new ArrayList<>();
+            for (Job j : ok) {
+                cells.add(f -> switch (kind) {
+                    case CONVERGENCE -> convergence(f, directory, j.base(), j.points());
+                    case ERROR -> error(f, directory, j.base(), j.points());
+                    case PAYOFF -> payoff(f, directory, j.base(), j.points(), axis);
+                    case DISTRIBUTION -> distribution(f, directory, j.base(), j.points());
+                    case DEVIATION -> deviation(f, directory, j.base(), j.points());
+                    case VERDICTS -> verdicts(f, directory, j.base(), j.points());
+                    case CALIBRATION -> throw new IllegalStateException("calibration has no groups");
+                });
+            }
+            Figures f = kind == FigureKind.DEVIATION ? shared : figures;
+            int columns = Math.min(f.size().widthCm() >= 15 ? 3 : 2, (int) Math.ceil(Math.sqrt(ok.size())));
+            String base = FileNames.unique(FileNames.readable(kind.label() + "-panels"), taken);
+            String groups = String.join("; ", ok.stream().map(Job::group).toList());
+            try {
+                out.add(new Drawn(kind, "panels: " + groups, f.panels(directory, base, columns, cells)));
+            } catch (IllegalArgumentException ex) {
+                out.add(new Drawn(kind, "panels: " + groups, new FigureResult(List.of(),
+                    List.of("not drawn: " + ex.getMessage()))));
+            }
+        }
+        return out;
     }
 
     /** One figure to draw, named before drawing so that names do not depend on timing. */

@@ -330,12 +330,14 @@ public final class Report {
             case CONVERGENCE -> "State frequencies against game length (log scale): simulated with intervals, "
                 + "exact finite-horizon expectation (solid), stationary value (dashed)";
             case ERROR -> "Distance of the simulated payoff of X from its stationary value against game length, "
-                + "with the exact bias and the sampling slope -1/2";
-            case PAYOFF -> "Payoffs per round against the continuation probability: exact and simulated";
+                + "with intervals, the exact bias (solid) and the exact standard error of the mean (dashed)";
+            case PAYOFF -> "Payoffs per round against the continuation probability: exact (solid), simulated with "
+                + "intervals, stationary (dashed) and claimed values where given";
             case DISTRIBUTION -> "State at round t: exact v_1 M^(t-1) and simulated snapshots";
-            case DEVIATION -> "|observed - stationary| payoff of X over execution error and game length";
+            case DEVIATION -> "Exact bias of the payoff of X from its stationary value, over execution error and "
+                + "horizon (one colour scale for all pairs)";
             case VERDICTS -> "Does the stationary payoff of X hold within the tolerance, over execution error and "
-                + "game length";
+                + "horizon";
             case CALIBRATION -> d.kind().label();
         };
         return what + " (" + d.group() + ")";

@@ -137,4 +137,21 @@ class FigureDataTest {
         assertTrue(manifest.size() > 1 && manifest.stream().skip(1).allMatch(l -> l.contains(",svg,double,17.5,")),
             String.join("\n", manifest));
     }
+
+    /** plot --panels combines the pairs of each figure kind into one lettered file and lists it in the manifest. */
+    @Test
+    void plotCombinesPairsIntoPanels() throws IOException {
+        check("two", String.join("\n",
+            "experiment: two", "game: 3,0,5,1", "pairs:", "  - {name: first, x: tft, y: wsls}",
+            "  - {name: second, x: wsls, y: wsls}", "grid:", "  noise: [0.05]", "  rounds: [10, 100]",
+            "replicates: 200", "seed: 13", ""));
+        Path folder = dir.resolve("two");
+        assertEquals(0, run("plot", folder.toString(), "--panels", "--figure-format", "svg"));
+        Path figures = folder.resolve("figures");
+        String svg = Files.readString(figures.resolve("convergence-panels.svg"));
+        assertTrue(svg.contains(">(a)<") && svg.contains(">(b)<"), "panel letters");
+        assertTrue(svg.contains("first, noise=0.05") && svg.contains("second, noise=0.05"), "both pairs");
+        assertTrue(Files.readString(figures.resolve("manifest.csv")).contains("convergence-panels.svg,convergence,"),
+            "in the manifest");
+    }
 }
