@@ -85,6 +85,18 @@ class PrintFiguresTest {
         }
     }
 
+    /** Claimed payoffs are drawn as crosses with a legend entry; the stationary lines with theirs. */
+    @org.junit.jupiter.api.Test
+    void payoffFigureOverlaysClaimedValues() throws IOException {
+        FigureResult r = Figures.withDefaults().withFormats(FigureFormat.SVG).payoffByContinuation(dir, "claims",
+            SampleData.payoff(3).withNames("", "X = tft", "Y = wsls").withStationary(2.3, 2.4)
+                .withClaims(new Curve(new double[] {0.5, 0.9}, new double[] {2.2, 2.3}), null));
+        String svg = Files.readString(r.files().get(0));
+        assertTrue(svg.contains(">claimed value<"), "legend names the claimed values");
+        assertTrue(svg.contains(">X = tft<") && svg.contains(">Y = wsls<"), "legend names the strategies");
+        assertTrue(svg.contains("\u03b4 \u2192 1"), "legend names the stationary reference");
+    }
+
     /** Two pairs' payoff figures side by side, with panel letters, at double-column width. */
     @org.junit.jupiter.api.Test
     void panelsCarryLettersAndKeepTheMinimumTextSize() throws IOException {
