@@ -67,6 +67,10 @@ public final class CurvesCsv {
                     continue;
                 }
                 int k = withHorizon ? 4 : 3;
+                if (withHorizon && !List.of(Curves.ROUNDS, Curves.CONTINUATION, "").contains(rec.get(3))) {
+                    throw new IllegalArgumentException(file + ":" + (rec.getRecordNumber() + 1)
+                        + ": horizon must be rounds, continuation or blank: " + rec.get(3));
+                }
                 out.add(new Curves.Point(figure.get(), rec.get(1), rec.get(2), withHorizon ? rec.get(3) : "",
                     ResultsCsv.parse(rec.get(k)), ResultsCsv.parse(rec.get(k + 1)), ResultsCsv.parse(rec.get(k + 2)),
                     ResultsCsv.parse(rec.get(k + 3)), ResultsCsv.parse(rec.get(k + 4))));
