@@ -144,6 +144,7 @@ final class CalibrateCommand implements Callable<Integer> {
         if (out != null) {
             writeCsv(out.resolve("calibration.csv"), r);
             Plotter.Drawn d = Plotter.drawCalibration(out.resolve("calibration.csv"), out.resolve("figures"));
+            Plotter.manifest(out.resolve("figures"), reprise.output.figures.Figures.withDefaults(), java.util.List.of(d));
             d.result().notes().forEach(n -> err.println("calibrate: figure: " + n));
         }
         PrintWriter o = spec.commandLine().getOut();

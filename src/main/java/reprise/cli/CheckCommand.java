@@ -58,6 +58,9 @@ final class CheckCommand implements Callable<Integer> {
         + "results of an unsharded run of FILE, written into DIR (or --out).")
     Path merge;
 
+    @picocli.CommandLine.Mixin
+    FigureOptions figureOptions = new FigureOptions();
+
     @Override
     public Integer call() {
         if (shard != null || merge != null) {
@@ -88,7 +91,7 @@ final class CheckCommand implements Callable<Integer> {
     RunSettings settings() {
         int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
         return new RunSettings(out, nThreads, force, resume, spec.commandLine().getParseResult().originalArgs(),
-            Main.version());
+            Main.version(), figureOptions.figures(), figureOptions.axis());
     }
 
     /**

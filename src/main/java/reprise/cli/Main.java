@@ -1,6 +1,8 @@
 package reprise.cli;
 
 import java.io.PrintWriter;
+import java.util.List;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.IVersionProvider;
@@ -84,11 +86,44 @@ public final class Main implements Runnable {
         return code;
     }
 
+    /** Holds a file name's dot to its extension while help text is wrapped; removed from the printed help. */
+    private static final String GLUE = "\uFEFF";
+    private static final java.util.regex.Pattern FILE_DOT = java.util.regex.Pattern.compile(
+        "(?<=[\\w-])\\.(?=(json|csv|md|yaml|png|svg|pdf|eps)\\b)");
+
+    /**
+     * picocli wraps help text with the JDK's line breaker, which allows a break after any full stop, so that
+     * "run.json" could be printed as "run." and "json" on the next line. A zero-width no-break space after
+     * such a dot keeps the name whole while wrapping, and is taken out of the printed help again.
+     */
+    private static void keepFileNamesWhole(CommandLine c) {
+        CommandSpec spec = c.getCommandSpec();
+        spec.usageMessage().description(glue(spec.usageMessage().description()));
+        for (CommandLine.Model.OptionSpec o : List.copyOf(spec.options())) {
+            String[] glued = glue(o.description());
+            if (!java.util.Arrays.equals(glued, o.description())) {
+                spec.remove(o);
+                spec.addOption(o.toBuilder().description(glued).build());
+            }
+        }
+        c.getHelpSectionMap().replaceAll((key, renderer) -> help -> renderer.render(help).replace(GLUE, ""));
+        c.getSubcommands().values().forEach(Main::keepFileNamesWhole);
+    }
+
+    private static String[] glue(String[] lines) {
+        String[] out = lines.clone();
+        for (int i = 0; i < out.length; i++) {
+            out[i] = FILE_DOT.matcher(out[i]).replaceAll("." + GLUE);
+        }
+        return out;
+    }
+
     static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
         cl.getSubcommands().get("calibrate").getCommandSpec().resourceBundle(new CalibrateCommand.Help());
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         cl.registerConverter(java.nio.file.Path.class, Main::path);
+        keepFileNamesWhole(cl);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             PrintWriter err = commandLine.getErr();
             if (ex instanceof IllegalArgumentException

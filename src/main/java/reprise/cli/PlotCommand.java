@@ -7,7 +7,6 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
@@ -15,8 +14,6 @@ import reprise.experiment.Curves;
 import reprise.experiment.InputFiles;
 import reprise.output.CurvesCsv;
 import reprise.output.Plotter;
-import reprise.output.figures.FigureFormat;
-import reprise.output.figures.FigureSize;
 import reprise.output.figures.Figures;
 
 /** {@code plot}: redraws the figures of a results folder from its curves.csv, without simulating again. */
@@ -31,18 +28,12 @@ final class PlotCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "RESULTS_DIR", description = "A folder written by check.")
     Path dir;
 
-    @Option(names = "--figure-size", paramLabel = "SIZE", defaultValue = "single",
-        description = "Printed size: single (8.5 cm wide), double (17.5 cm) or WIDTHxHEIGHT in cm, e.g. 12x8 "
-            + "(default: ${DEFAULT-VALUE}).")
-    String figureSize;
+    @picocli.CommandLine.Mixin
+    FigureOptions figureOptions = new FigureOptions();
 
-    @Option(names = "--figure-format", paramLabel = "FORMAT", split = ",", defaultValue = "png,svg,pdf",
-        description = "File formats, comma-separated: png, svg, pdf, eps (default: ${DEFAULT-VALUE}).")
-    List<String> figureFormats;
-
-    @Option(names = "--dpi", paramLabel = "DPI", defaultValue = "300",
-        description = "PNG resolution in dots per inch, 72 to 1200 (default: ${DEFAULT-VALUE}).")
-    int dpi;
+    @picocli.CommandLine.Option(names = "--panels", description = "Also combine the pairs of each figure kind into "
+        + "one file with lettered panels (KIND-panels.png and so on; 2 to 12 panels).")
+    boolean panels;
 
     @Override
     public Integer call() {
@@ -52,13 +43,17 @@ final class PlotCommand implements Callable<Integer> {
             throw new IllegalArgumentException(dir + " is not a results folder: no curves.csv (from check) or "
                 + "calibration.csv (from calibrate --out) in it");
         }
+        Figures figures = figureOptions.figures();
         List<Plotter.Drawn> drawn = new java.util.ArrayList<>();
-        if (Files.isRegularFile(curves)) {
-            drawn.addAll(Plotter.draw(readCurves(curves), dir.resolve("figures"), figures()));
-        }
         if (Files.isRegularFile(calibration)) {
             text(calibration, "calibration file");
-            drawn.add(Plotter.drawCalibration(calibration, dir.resolve("figures")));
+            drawn.add(Plotter.drawCalibration(calibration, dir.resolve("figures"), figures));
+        }
+        if (Files.isRegularFile(curves)) {
+            drawn.addAll(0, Plotter.draw(readCurves(curves), dir.resolve("figures"), figures, figureOptions.axis(),
+                panels ? Plotter.Panels.ALSO_COMBINED : Plotter.Panels.SEPARATE, drawn));
+        } else {
+            Plotter.manifest(dir.resolve("figures"), figures, drawn);
         }
         for (Plotter.Drawn d : drawn) {
             d.result().files().forEach(f -> spec.commandLine().getOut().println(f));
@@ -67,13 +62,6 @@ final class PlotCommand implements Callable<Integer> {
         }
         return Main.OK;
     }
-
-    private Figures figures() {
-        List<FigureFormat> formats = figureFormats.stream().map(FigureFormat::parse).toList();
-        return Figures.withDefaults().withSize(FigureSize.parse(figureSize)).withDpi(dpi)
-            .withFormats(formats.get(0), formats.subList(1, formats.size()).toArray(FigureFormat[]::new));
-    }
-
     /**
      * Reads curves.csv, refusing in one line a file that is not one: binary or not UTF-8, too large, or
      * text that does not parse as the curves table.

@@ -6,7 +6,9 @@ import java.util.Locale;
 import reprise.experiment.CaseResult;
 import reprise.experiment.Experiment;
 import reprise.experiment.Runner;
+import reprise.experiment.ResultRow;
 import reprise.experiment.Verdict;
+import reprise.output.Report;
 import reprise.run.Finished;
 
 /** What {@code check} and {@code merge} print about a finished run: the summary and the warnings. */
@@ -31,10 +33,34 @@ final class RunSummary {
             finished.folder());
         outcome.rows().stream().filter(r -> r.verdict() == Verdict.DISAGREES
             && r.comparisonKind().countsTowardsExit()).forEach(r -> stdout.printf(Locale.ROOT,
-            "  disagrees: %s %s (%s): predicted %s, observed %s%n", r.caseId(), r.subject().label(),
-            r.comparisonKind().label(),
-            Double.isNaN(r.predicted()) ? "-" : String.format(Locale.ROOT, "%.6g", r.predicted()),
-            Double.isNaN(r.observed()) ? "-" : String.format(Locale.ROOT, "%.6g", r.observed())));
+            "  disagrees: %s %s (%s): %s%n", r.caseId(), r.subject().label(), r.comparisonKind().label(),
+            disagreement(r)));
+    }
+
+    /**
+     * What a disagreeing row says: predicted and observed values when it has them, the test statistic
+     * (with its degrees of freedom) when it is a joint test without single values, then the adjusted p-value.
+     */
+    static String disagreement(ResultRow r) {
+        StringBuilder sb = new StringBuilder();
+        if (!Double.isNaN(r.predicted()) || !Double.isNaN(r.observed())) {
+            sb.append("predicted ").append(g(r.predicted())).append(", observed ").append(g(r.observed()));
+        } else if (!Double.isNaN(r.statistic())) {
+            sb.append("statistic ").append(g(r.statistic()));
+            if (!Double.isNaN(r.degreesOfFreedom())) {
+                double df = r.degreesOfFreedom();
+                sb.append(" on ").append(df == Math.rint(df) ? Long.toString((long) df) : g(df)).append(" df");
+            }
+        }
+        if (!Double.isNaN(r.adjustedP())) {
+            sb.append(sb.length() == 0 ? "" : ", ").append("adjusted p ")
+                .append(r.adjustedP() < Report.SMALLEST_P_SHOWN ? "< 1e-300" : "= " + Report.pValue(r.adjustedP()));
+        }
+        return sb.length() == 0 ? r.note() : sb.toString();
+    }
+
+    private static String g(double v) {
+        return Double.isNaN(v) ? "-" : String.format(Locale.ROOT, "%.6g", v);
     }
 
     /**

@@ -10,6 +10,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
+import reprise.experiment.CaseAnalysis;
 import reprise.game.Horizon;
 import reprise.game.Match;
 import reprise.game.State;
@@ -17,6 +18,9 @@ import reprise.sim.Enactment;
 import reprise.sim.SimulationResult;
 import reprise.sim.SimulationSpec;
 import reprise.sim.Simulator;
+import reprise.stats.Estimate;
+import reprise.stats.GameSummary;
+import reprise.stats.ReplicateInference;
 
 /** {@code simulate}: plays independent games round by round and prints the exact integer tallies. */
 @Command(name = "simulate", mixinStandardHelpOptions = true,
@@ -121,6 +125,34 @@ final class SimulateCommand implements Callable<Integer> {
         o.put("generator", r.generator());
         o.put("fast_path", r.fastPath());
         o.put("threads", threads);
+        ObjectNode sums = Json.object();
+        ArrayNode products = sums.putArray("state_count_products");
+        for (java.math.BigInteger[] row : r.sumOfStateCountProducts()) {
+            ArrayNode a = products.addArray();
+            for (java.math.BigInteger v : row) {
+                a.add(v);
+            }
+        }
+        ArrayNode lengthTimes = sums.putArray("length_times_state_counts");
+        for (java.math.BigInteger v : r.sumOfLengthTimesStateCounts()) {
+            lengthTimes.add(v);
+        }
+        sums.put("length_squares", r.lengthSumOfSquares());
+        o.set("per_game_sums", sums);
+        Estimate[] se = standardErrors(r, match);
+        if (se == null) {
+            o.putNull("standard_errors");
+        } else {
+            ObjectNode e = Json.object();
+            double[] shares = new double[4];
+            for (int st = 0; st < 4; st++) {
+                shares[st] = se[st].standardError();
+            }
+            e.set("state_shares", Json.array(shares));
+            Json.put(e, "payoff_x", se[4].standardError());
+            Json.put(e, "payoff_y", se[5].standardError());
+            o.set("standard_errors", e);
+        }
         if (r.snapshotRounds().length > 0) {
             ArrayNode snaps = o.putArray("snapshots");
             long[][] c = r.snapshotCounts();
@@ -135,6 +167,26 @@ final class SimulateCommand implements Callable<Integer> {
         return o;
     }
 
+    /**
+     * Standard errors of the state shares and the payoffs per round over games (the ratio estimator, each game
+     * one observation), or null with fewer than 2 games or no tallied round.
+     *
+     * @return CC, CD, DC, DD, payoff of X, payoff of Y
+     */
+    static Estimate[] standardErrors(SimulationResult r, Match match) {
+        GameSummary g = CaseAnalysis.summary(r);
+        if (g.games() < 2 || g.sumLength() <= 0) {
+            return null;
+        }
+        Estimate[] e = new Estimate[6];
+        for (int st = 0; st < 4; st++) {
+            e[st] = ReplicateInference.stateFrequency(g, st);
+        }
+        e[4] = ReplicateInference.payoff(g, match.game().payoffX());
+        e[5] = ReplicateInference.payoff(g, match.game().payoffY());
+        return e;
+    }
+
     private static void table(PrintWriter out, SimulationResult r, Match match, Horizon horizon, int threads,
         double seconds) {
         out.printf(Locale.ROOT, "X: %s   Y: %s   game: %s   %s%n", match.x().label(), match.y().label(),
@@ -142,11 +194,13 @@ final class SimulateCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "%d games, %d tallied rounds, seed %d, %s%s%n", r.replicates(), r.roundsTotal(),
             r.seed(), r.generator(), r.fastPath() ? ", fused memory-one path" : ", literal path");
         out.println();
-        out.println("state   rounds          share");
+        Estimate[] se = standardErrors(r, match);
+        out.println(se == null ? "state   rounds          share" : "state   rounds          share       standard error");
         long[] c = r.stateCounts();
         for (int s = 0; s < 4; s++) {
-            out.printf(Locale.ROOT, "%-6s  %-14d  %.6f%n", State.of(s), c[s],
-                r.roundsTotal() == 0 ? Double.NaN : (double) c[s] / r.roundsTotal());
+            out.printf(Locale.ROOT, "%-6s  %-14d  %.6f%s%n", State.of(s), c[s],
+                r.roundsTotal() == 0 ? Double.NaN : (double) c[s] / r.roundsTotal(),
+                se == null ? "" : String.format(Locale.ROOT, "    %.6f", se[s].standardError()));
         }
         out.println();
         out.println("transitions (row: round t-1, column: round t)");
@@ -156,7 +210,13 @@ final class SimulateCommand implements Callable<Integer> {
             out.printf(Locale.ROOT, "%-6s%-14d%-14d%-14d%-14d%n", State.of(s), t[s][0], t[s][1], t[s][2], t[s][3]);
         }
         out.println();
-        out.printf(Locale.ROOT, "payoff per round: X %.6f   Y %.6f%n", r.meanPayoffX(), r.meanPayoffY());
+        if (se == null) {
+            out.printf(Locale.ROOT, "payoff per round: X %.6f   Y %.6f%n", r.meanPayoffX(), r.meanPayoffY());
+        } else {
+            out.printf(Locale.ROOT, "payoff per round: X %.6f (standard error %.6f)   Y %.6f (standard error %.6f)%n",
+                r.meanPayoffX(), se[4].standardError(), r.meanPayoffY(), se[5].standardError());
+            out.println("standard errors over games (each game one observation; ratio estimator sum w.N / sum L)");
+        }
         out.printf(Locale.ROOT, "game length: mean %.4f, min %d, max %d%n", (double) r.lengthSum() / r.replicates(),
             r.lengthMin(), r.lengthMax());
         long[] rounds = r.snapshotRounds();

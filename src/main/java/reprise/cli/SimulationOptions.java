@@ -31,7 +31,7 @@ final class SimulationOptions {
     @Mixin
     BurnInOption burnIn;
 
-    @Option(names = "--snapshots", paramLabel = "t1,t2,...", split = ",",
+    @Option(names = "--snapshots", paramLabel = "ROUND", split = ",",
         description = "Count the state at these rounds across games.")
     long[] snapshots;
 

@@ -214,8 +214,27 @@ public record Experiment(String name, String description, Path file, String sha2
      * @param x X's spec
      * @param y Y's spec
      * @param line the line of the pair in the file (for messages)
+     * @param xLine the line of its {@code x:} field (for messages about X's strategy)
+     * @param yLine the line of its {@code y:} field
      */
-    public record Pair(String name, String x, String y, int line) {
+    public record Pair(String name, String x, String y, int line, int xLine, int yLine) {
+        /**
+         * A pair whose fields are all on its first line (as in {@code - {name: a, x: tft, y: tft}}).
+         *
+         * @param name the name
+         * @param x X's spec
+         * @param y Y's spec
+         * @param line the line of the pair
+         */
+        public Pair(String name, String x, String y, int line) {
+            this(name, x, y, line, line, line);
+        }
+
+        /** @param field "x" or "y"; @return the line of that field */
+        int lineOf(String field) {
+            return field.equals("x") ? xLine : field.equals("y") ? yLine : line;
+        }
+
         /** Checks that the name and specs are present. */
         public Pair {
             Objects.requireNonNull(name, "name");

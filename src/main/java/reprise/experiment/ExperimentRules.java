@@ -127,11 +127,13 @@ final class ExperimentRules {
         List<String> used = new ArrayList<>(alsoUsed);
         for (Experiment.Pair p : pairs) {
             for (String ph : Grid.placeholders(p.x() + " " + p.y())) {
+                // the line of the field that uses the placeholder (x: when both do)
+                int line = Grid.placeholders(p.x()).contains(ph) ? p.xLine() : p.yLine();
                 if (ph.equals(Grid.CONTINUATION) && !continuation) {
-                    problems.add(p.line(), "pairs." + p.name(), "uses {continuation} but the grid has no "
+                    problems.add(line, "pairs." + p.name(), "uses {continuation} but the grid has no "
                         + "continuation: axis");
                 } else if (!parameters.containsKey(ph) && !ph.equals(Grid.CONTINUATION)) {
-                    problems.add(p.line(), "pairs." + p.name(), "uses {" + ph + "} but grid.parameters has no '" + ph
+                    problems.add(line, "pairs." + p.name(), "uses {" + ph + "} but grid.parameters has no '" + ph
                         + "'" + Problems.didYouMean(ph, List.copyOf(parameters.keySet())));
                 }
                 used.add(ph);
@@ -242,7 +244,7 @@ final class ExperimentRules {
         try {
             Strategies.parse(spec, b.game, player);
         } catch (IllegalArgumentException ex) {
-            problems.add(p.line(), "pairs." + p.name() + "." + field, ex.getMessage());
+            problems.add(p.lineOf(field), "pairs." + p.name() + "." + field, ex.getMessage());
         }
     }
 }

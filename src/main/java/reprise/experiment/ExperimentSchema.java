@@ -286,7 +286,8 @@ final class ExperimentSchema {
         if (name != null) {
             names.add(name);
         }
-        return name != null && x != null && y != null ? new Experiment.Pair(name, x, y, YamlReader.line(item)) : null;
+        return name != null && x != null && y != null ? new Experiment.Pair(name, x, y, YamlReader.line(item),
+            YamlReader.line(f.get("x")), YamlReader.line(f.get("y"))) : null;
     }
 
     private void numbers() {
@@ -351,13 +352,15 @@ final class ExperimentSchema {
             }
             builder.claims = claims;
         }
+        // a path written in the file is relative to the file (like claims:); the default, which the file does
+        // not mention, is relative to the working directory, as is --out
         String outText = YamlReader.string(top, "output", null, problems);
         if (outText != null && outText.isBlank()) {
             problems.add(line("output"), "output", "must name a folder, not be empty (without output:, results "
                 + "go to results/NAME)");
             outText = null;
         }
-        builder.output = Path.of(outText != null ? outText
-            : "results/" + (builder.name == null ? "experiment" : builder.name));
+        builder.output = outText != null ? base.resolve(outText).normalize()
+            : Path.of("results/" + (builder.name == null ? "experiment" : builder.name));
     }
 }

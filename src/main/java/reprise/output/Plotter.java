@@ -12,6 +12,7 @@ import reprise.experiment.FigureKind;
 import reprise.experiment.TestId;
 import reprise.game.State;
 import reprise.output.figures.CalibrationData;
+import reprise.output.figures.ContinuationAxis;
 import reprise.output.figures.ConvergenceData;
 import reprise.output.figures.Curve;
 import reprise.output.figures.ErrorScalingData;
@@ -68,6 +69,48 @@ public final class Plotter {
      * @return what was drawn (or not drawn, with no files), in order
      */
     public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures) {
+        return draw(points, directory, figures, ContinuationAxis.PROBABILITY, List.of());
+    }
+
+    /**
+     * Draws all figures; see {@link #draw(List, Path)}.
+     *
+     * @param points the points
+     * @param directory where the figures go
+     * @param figures the figure settings
+     * @param axis what the x-axis of payoff-against-continuation figures shows
+     * @param more figures drawn elsewhere (for example the calibration figure) to list in the manifest too
+     * @return what was drawn (or not drawn, with no files), in order, without {@code more}
+     */
+    public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures, ContinuationAxis axis,
+        List<Drawn> more) {
+        return draw(points, directory, figures, axis, Panels.SEPARATE, more);
+    }
+
+    /** Whether the figures of several pairs are also combined into one file per figure kind. */
+    public enum Panels {
+        /** One file per figure and group. */
+        SEPARATE,
+        /**
+         * Also one file per figure kind with two or more groups (up to 12), the groups as panels (a), (b), ...
+         * in the order of the separate files, named {@code KIND-panels}.
+         */
+        ALSO_COMBINED
+    }
+
+    /**
+     * Draws all figures, optionally also combined into panels; see {@link #draw(List, Path)}.
+     *
+     * @param points the points
+     * @param directory where the figures go
+     * @param figures the figure settings
+     * @param axis what the x-axis of payoff-against-continuation figures shows
+     * @param panels whether to combine the groups of each figure kind into panels too
+     * @param more figures drawn elsewhere (for example the calibration figure) to list in the manifest too
+     * @return what was drawn (or not drawn, with no files), in order, without {@code more}
+     */
+    public static List<Drawn> draw(List<Curves.Point> points, Path directory, Figures figures, ContinuationAxis axis,
+        Panels panels, List<Drawn> more) {
         Map<FigureKind, Map<String, List<Curves.Point>>> byFigure = new LinkedHashMap<>();
         for (Curves.Point p : points) {
             byFigure.computeIfAbsent(p.figure(), k -> new LinkedHashMap<>())
@@ -89,7 +132,7 @@ public final class Plotter {
                 r = switch (figure) {
                     case CONVERGENCE -> convergence(figures, directory, base, pts);
                     case ERROR -> error(figures, directory, base, pts);
-                    case PAYOFF -> payoff(figures, directory, base, pts);
+                    case PAYOFF -> payoff(figures, directory, base, pts, axis);
                     case DISTRIBUTION -> distribution(figures, directory, base, pts);
                     case DEVIATION -> deviation(shared, directory, base, pts);
                     case VERDICTS -> verdicts(figures, directory, base, pts);
@@ -102,9 +145,62 @@ public final class Plotter {
                 r = new FigureResult(List.of(), List.of("not drawn: " + ex.getMessage()));
             }
             return r == null ? null : new Drawn(figure, group, r);
-        }).filter(java.util.Objects::nonNull).toList();
-        FigureManifest.write(directory, figures, out.stream()
+        }).filter(java.util.Objects::nonNull).collect(java.util.stream.Collectors.toCollection(ArrayList::new));
+        if (panels == Panels.ALSO_COMBINED) {
+            out.addAll(combined(jobs, out, directory, figures, shared, axis, taken));
+        }
+        List<Drawn> all = new ArrayList<>(out);
+        all.addAll(more);
+        manifest(directory, figures, all);
+        return out;
+    }
+
+    /**
+     * Writes figures/manifest.csv for the given figures.
+     *
+     * @param directory the figures' folder
+     * @param figures the settings they were drawn with
+     * @param drawn the figures
+     * @return the manifest's path
+     */
+    public static Path manifest(Path directory, Figures figures, List<Drawn> drawn) {
+        return FigureManifest.write(directory, figures, drawn.stream()
             .map(d -> new FigureManifest.Entry(d.kind().label(), d.group(), d.result())).toList());
+    }
+
+    /** One file per figure kind whose separately drawn groups number 2 to 12, the groups as lettered panels. */
+    private static List<Drawn> combined(List<Job> jobs, List<Drawn> drawn, Path directory, Figures figures,
+        Figures shared, ContinuationAxis axis, java.util.Set<String> taken) {
+        List<Drawn> out = new ArrayList<>();
+        for (FigureKind kind : FigureKind.values()) {
+            List<Job> ok = jobs.stream().filter(j -> j.figure() == kind && drawn.stream().anyMatch(d -> d.kind() == kind
+                && d.group().equals(j.group()) && !d.result().files().isEmpty())).toList();
+            if (ok.size() < 2 || ok.size() > 12) {
+                continue;
+            }
+            List<java.util.function.Function<Figures, FigureResult>> cells = new ArrayList<>();
+            for (Job j : ok) {
+                cells.add(f -> switch (kind) {
+                    case CONVERGENCE -> convergence(f, directory, j.base(), j.points());
+                    case ERROR -> error(f, directory, j.base(), j.points());
+                    case PAYOFF -> payoff(f, directory, j.base(), j.points(), axis);
+                    case DISTRIBUTION -> distribution(f, directory, j.base(), j.points());
+                    case DEVIATION -> deviation(f, directory, j.base(), j.points());
+                    case VERDICTS -> verdicts(f, directory, j.base(), j.points());
+                    case CALIBRATION -> throw new IllegalStateException("calibration has no groups");
+                });
+            }
+            Figures f = kind == FigureKind.DEVIATION ? shared : figures;
+            int columns = Math.min(f.size().widthCm() >= 15 ? 3 : 2, (int) Math.ceil(Math.sqrt(ok.size())));
+            String base = FileNames.unique(FileNames.readable(kind.label() + "-panels"), taken);
+            String groups = String.join("; ", ok.stream().map(Job::group).toList());
+            try {
+                out.add(new Drawn(kind, "panels: " + groups, f.panels(directory, base, columns, cells)));
+            } catch (IllegalArgumentException ex) {
+                out.add(new Drawn(kind, "panels: " + groups, new FigureResult(List.of(),
+                    List.of("not drawn: " + ex.getMessage()))));
+            }
+        }
         return out;
     }
 
@@ -132,6 +228,19 @@ public final class Plotter {
      * @return what was drawn
      */
     public static Drawn drawCalibration(Path calibrationCsv, Path directory) {
+        return drawCalibration(calibrationCsv, directory, Figures.withDefaults());
+    }
+
+    /**
+     * Draws the p-value calibration figure with the given settings; see {@link #drawCalibration(Path, Path)}.
+     * The caller lists it in the manifest ({@link #manifest}).
+     *
+     * @param calibrationCsv the file
+     * @param directory where the figure goes
+     * @param figures the figure settings
+     * @return what was drawn
+     */
+    public static Drawn drawCalibration(Path calibrationCsv, Path directory, Figures figures) {
         Map<String, List<Double>> byTest = new LinkedHashMap<>();
         try (java.io.Reader r = java.nio.file.Files.newBufferedReader(calibrationCsv);
              org.apache.commons.csv.CSVParser p = org.apache.commons.csv.CSVFormat.DEFAULT.builder().setHeader()
@@ -156,7 +265,7 @@ public final class Plotter {
         List<PValueSample> samples = new ArrayList<>();
         byTest.forEach((name, ps) -> samples.add(new PValueSample(name, ps.stream().mapToDouble(Double::doubleValue)
             .toArray())));
-        FigureResult result = Figures.withDefaults().pValueCalibration(directory, "calibration-qq",
+        FigureResult result = figures.pValueCalibration(directory, "calibration-qq",
             new CalibrationData("", samples));
         return new Drawn(FigureKind.CALIBRATION, "p-values against uniform quantiles", result);
     }
@@ -203,22 +312,47 @@ public final class Plotter {
             return null;
         }
         List<Curves.Point> se = series(pts, "exact standard error");
-        return f.errorScaling(dir, base, new ErrorScalingData("", sim.get(0).group(), "payoff of X per round",
+        return f.errorScaling(dir, base, new ErrorScalingData("", sim.get(0).group(), "payoff of X",
             estimates(sim), bias.isEmpty() ? null : new Curve(xs(bias), ys(bias)),
             se.isEmpty() ? null : new Curve(xs(se), ys(se))));
     }
 
-    private static FigureResult payoff(Figures f, Path dir, String base, List<Curves.Point> pts) {
-        List<Curves.Point> ex = series(pts, "X exact");
-        List<Curves.Point> ey = series(pts, "Y exact");
-        if (ex.isEmpty()) {
+    /** A payoff series name: the player ("X" or "Y"), its strategy in brackets if known, and what it is. */
+    private static final java.util.regex.Pattern PAYOFF_SERIES = java.util.regex.Pattern.compile(
+        "([XY])(?: \\((.*)\\))? (exact|simulated|stationary|claimed)");
+
+    private static FigureResult payoff(Figures f, Path dir, String base, List<Curves.Point> pts,
+        ContinuationAxis axis) {
+        Map<String, List<Curves.Point>> by = new LinkedHashMap<>();
+        String[] names = {"X", "Y"};
+        for (Curves.Point p : pts) {
+            java.util.regex.Matcher m = PAYOFF_SERIES.matcher(p.series());
+            if (!m.matches()) {
+                continue;
+            }
+            by.computeIfAbsent(m.group(1) + " " + m.group(3), k -> new ArrayList<>()).add(p);
+            if (m.group(2) != null) {
+                names[m.group(1).equals("X") ? 0 : 1] = m.group(1) + " = " + m.group(2);
+            }
+        }
+        List<Curves.Point> ex = by.getOrDefault("X exact", List.of());
+        List<Curves.Point> ey = by.getOrDefault("Y exact", List.of());
+        if (ex.isEmpty() || ey.isEmpty()) {
             return null;
         }
-        List<Curves.Point> sx = series(pts, "X simulated");
-        List<Curves.Point> sy = series(pts, "Y simulated");
-        return f.payoffByContinuation(dir, base, new PayoffData("", "payoff per round, E[total] / E[length]",
+        List<Curves.Point> sx = by.getOrDefault("X simulated", List.of());
+        List<Curves.Point> sy = by.getOrDefault("Y simulated", List.of());
+        List<Curves.Point> stx = by.getOrDefault("X stationary", List.of());
+        List<Curves.Point> sty = by.getOrDefault("Y stationary", List.of());
+        List<Curves.Point> cx = by.getOrDefault("X claimed", List.of());
+        List<Curves.Point> cy = by.getOrDefault("Y claimed", List.of());
+        PayoffData data = new PayoffData("", "payoff per round, E[total] / E[length]",
             new Curve(xs(ex), ys(ex)), new Curve(xs(ey), ys(ey)), sx.isEmpty() ? null : estimates(sx),
-            sy.isEmpty() ? null : estimates(sy)).withNames(ex.get(0).group(), "X", "Y"));
+            sy.isEmpty() ? null : estimates(sy)).withNames(ex.get(0).group(), names[0], names[1])
+            .withStationary(stx.isEmpty() ? Double.NaN : stx.get(0).y(), sty.isEmpty() ? Double.NaN : sty.get(0).y())
+            .withClaims(cx.isEmpty() ? null : new Curve(xs(cx), ys(cx)), cy.isEmpty() ? null : new Curve(xs(cy), ys(cy)))
+            .withAxis(axis);
+        return f.payoffByContinuation(dir, base, data);
     }
 
     private static FigureResult distribution(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -262,7 +396,7 @@ public final class Plotter {
             v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = p.value();
         }
         return f.valueHeatmap(dir, base, new GridValues("", new GridAxes("execution error", g.xLabels(),
-            horizonTitle(g), g.yLabels()), "|observed - stationary| payoff of X", v));
+            horizonTitle(g, pts), g.yLabels()), pts.get(0).series(), v));
     }
 
     private static FigureResult verdicts(Figures f, Path dir, String base, List<Curves.Point> pts) {
@@ -275,11 +409,16 @@ public final class Plotter {
             v[g.ys().indexOf(p.y())][g.xs().indexOf(p.x())] = (int) p.value();
         }
         return f.verdictHeatmap(dir, base, new GridVerdicts("", new GridAxes("execution error", g.xLabels(),
-            horizonTitle(g), g.yLabels()), List.of("agrees", "inconclusive", "disagrees"), v));
+            horizonTitle(g, pts), g.yLabels()), List.of("agrees", "inconclusive", "disagrees"), v));
     }
 
-    /** The heatmaps' y-axis: game lengths are whole numbers of rounds, continuation probabilities lie below 1. */
-    private static String horizonTitle(Grid g) {
-        return g.ys().stream().allMatch(y -> y < 1) ? "continuation probability \u03b4" : "game length (rounds)";
+    /**
+     * The heatmaps' y-axis, from the points' horizon kind; files without it (blank) fall back to the values:
+     * game lengths are whole numbers of rounds, continuation probabilities lie below 1.
+     */
+    private static String horizonTitle(Grid g, List<Curves.Point> pts) {
+        String kind = pts.get(0).horizon();
+        boolean continuation = kind.isEmpty() ? g.ys().stream().allMatch(y -> y < 1) : kind.equals(Curves.CONTINUATION);
+        return continuation ? "continuation probability \u03b4" : "game length (rounds)";
     }
 }

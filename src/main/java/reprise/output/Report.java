@@ -94,7 +94,7 @@ public final class Report {
         sb.append("|---|---|---|---|---|---|---|---|\n");
         disagreeing.forEach(r -> sb.append("| ").append(r.caseId()).append(" | ").append(r.subject().label())
             .append(" | ").append(r.comparisonKind().label()).append(" | ").append(num(r.predicted())).append(" | ")
-            .append(num(r.observed())).append(" | ").append(interval(r)).append(" | ").append(num(r.adjustedP()))
+            .append(num(r.observed())).append(" | ").append(interval(r)).append(" | ").append(pValue(r.adjustedP()))
             .append(" | ").append(cell(r.note())).append(" |\n"));
         sb.append('\n');
     }
@@ -313,7 +313,7 @@ public final class Report {
 
     private static String testCell(List<ResultRow> rows, Subject subject) {
         return rows.stream().filter(r -> r.subject().equals(subject)).findFirst()
-            .map(r -> num(r.adjustedP()) + " " + r.verdict().word()).orElse("");
+            .map(r -> pValue(r.adjustedP()) + " " + r.verdict().word()).orElse("");
     }
 
     private static boolean counts(ResultRow r) {
@@ -337,12 +337,14 @@ public final class Report {
             case CONVERGENCE -> "State frequencies against game length (log scale): simulated with intervals, "
                 + "exact finite-horizon expectation (solid), stationary value (dashed)";
             case ERROR -> "Distance of the simulated payoff of X from its stationary value against game length, "
-                + "with the exact bias and the sampling slope -1/2";
-            case PAYOFF -> "Payoffs per round against the continuation probability: exact and simulated";
+                + "with intervals, the exact bias (solid) and the exact standard error of the mean (dashed)";
+            case PAYOFF -> "Payoffs per round against the continuation probability: exact (solid), simulated with "
+                + "intervals, stationary (dashed) and claimed values where given";
             case DISTRIBUTION -> "State at round t: exact v_1 M^(t-1) and simulated snapshots";
-            case DEVIATION -> "|observed - stationary| payoff of X over execution error and game length";
+            case DEVIATION -> "Exact bias of the payoff of X from its stationary value, over execution error and "
+                + "horizon (one colour scale for all pairs)";
             case VERDICTS -> "Does the stationary payoff of X hold within the tolerance, over execution error and "
-                + "game length";
+                + "horizon";
             case CALIBRATION -> d.kind().label();
         };
         return what + " (" + d.group() + ")";
@@ -354,6 +356,25 @@ public final class Report {
 
     private static String cell(String s) {
         return s == null ? "" : s.replace("|", "\\|").replace("\n", " ");
+    }
+
+    /** Below this a p-value is written as "&lt; 1e-300" in report.md and on stdout. */
+    public static final double SMALLEST_P_SHOWN = 1e-300;
+
+    /**
+     * A p-value for people: NaN as empty, values below {@link #SMALLEST_P_SHOWN} (0 included, which
+     * only means the survival function underflowed near the floating-point limit of about 2.2e-308) as
+     * "&lt; 1e-300", others as {@link #num}. results.csv keeps the computed number, so that it stays
+     * machine-readable.
+     *
+     * @param p the p-value
+     * @return the text
+     */
+    public static String pValue(double p) {
+        if (Double.isNaN(p)) {
+            return "";
+        }
+        return p < SMALLEST_P_SHOWN ? "< 1e-300" : num(p);
     }
 
     static String num(double v) {

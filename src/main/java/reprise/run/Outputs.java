@@ -169,7 +169,8 @@ final class Outputs {
         List<Case> cases = results.stream().map(CaseResult::c).toList();
         List<Curves.Point> points = Curves.of(e, results, outcome.rows(), 1 - e.alpha());
         CurvesCsv.write(dir.resolve("curves.csv"), points);
-        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"));
+        List<Plotter.Drawn> drawn = Plotter.draw(CurvesCsv.read(dir.resolve("curves.csv")), dir.resolve("figures"),
+            settings.figures(), settings.continuationAxis(), List.of());
         ResultsCsv.write(dir.resolve("results.csv"), cases, params, outcome.rows());
         CasesCsv.write(dir.resolve("cases.csv"), params, results);
         Instant end = Instant.now();
@@ -180,10 +181,7 @@ final class Outputs {
         for (Plotter.Drawn d : drawn) {
             d.result().files().forEach(f -> outputs.add(dir.toAbsolutePath().relativize(f.toAbsolutePath()).toString()));
         }
-        Path manifest = dir.resolve("figures").resolve(reprise.output.figures.FigureManifest.FILE_NAME);
-        if (java.nio.file.Files.isRegularFile(manifest)) {
-            outputs.add(dir.toAbsolutePath().relativize(manifest.toAbsolutePath()).toString());
-        }
+        outputs.add("figures/" + reprise.output.figures.FigureManifest.FILE_NAME);
         SetOutputs.write(dir, e, results, outcome.rows())
             .forEach(f -> outputs.add(dir.toAbsolutePath().relativize(f.toAbsolutePath()).toString()));
         Provenance.write(dir.resolve("run.json"), new Provenance.Run(version, settings.commandLine(), job.file(),

@@ -2,6 +2,8 @@ package reprise.run;
 
 import java.nio.file.Path;
 import java.util.List;
+import reprise.output.figures.ContinuationAxis;
+import reprise.output.figures.Figures;
 import reprise.sim.SimulationSpec;
 
 /**
@@ -14,9 +16,27 @@ import reprise.sim.SimulationSpec;
  * @param resume whether to continue an interrupted run from its checkpoint
  * @param commandLine the command line, for run.json
  * @param toolVersion the tool version, recorded in every file and checked when tallies are read back
+ * @param figures how the figures are drawn (size, formats, resolution)
+ * @param continuationAxis the x-axis of payoff figures over continuation probabilities
  */
 public record RunSettings(Path out, int threads, boolean force, boolean resume, List<String> commandLine,
-    String toolVersion) {
+    String toolVersion, Figures figures, ContinuationAxis continuationAxis) {
+
+    /**
+     * Settings with the default figures (single column, PNG, SVG and PDF, delta axis).
+     *
+     * @param out the output folder, or null
+     * @param threads worker threads
+     * @param force replace an earlier run
+     * @param resume continue an interrupted run
+     * @param commandLine the command line
+     * @param toolVersion the tool version
+     */
+    public RunSettings(Path out, int threads, boolean force, boolean resume, List<String> commandLine,
+        String toolVersion) {
+        this(out, threads, force, resume, commandLine, toolVersion, Figures.withDefaults(),
+            ContinuationAxis.PROBABILITY);
+    }
 
     /**
      * @throws IllegalArgumentException if threads is not between 1 and {@link SimulationSpec#MAX_THREADS}
@@ -27,6 +47,8 @@ public record RunSettings(Path out, int threads, boolean force, boolean resume, 
                 + threads);
         }
         commandLine = List.copyOf(commandLine);
+        java.util.Objects.requireNonNull(figures, "figures");
+        java.util.Objects.requireNonNull(continuationAxis, "continuationAxis");
     }
 
     /**

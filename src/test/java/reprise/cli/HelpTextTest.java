@@ -34,4 +34,31 @@ class HelpTextTest {
         assertFalse(warnings.contains("WARN"), command + ": " + warnings);
         assertFalse(out.toString().contains("%n"), command + " help shows a raw format string");
     }
+
+    /**
+     * picocli wraps descriptions at sentence ends, a full stop followed by a space: a file name such as
+     * "run.json" must never come out as "run. json", at any terminal width.
+     */
+    @ParameterizedTest
+    @ValueSource(strings = {"check", "merge", "slurm-script", "solve", "simulate", "plan", "calibrate", "plot"})
+    void fileNamesAreNeverSplitAtTheirDot(String command) {
+        picocli.CommandLine cl = Main.commandLine().getSubcommands().get(command);
+        java.util.regex.Pattern split = java.util.regex.Pattern.compile(
+            "\\b(run|cases|results|curves|report|calibration|manifest|shard-I-of-N)\\.\\s+(json|csv|md)\\b");
+        for (int width = 55; width <= 160; width++) {
+            cl.setUsageHelpWidth(width);
+            String help = cl.getUsageMessage(picocli.CommandLine.Help.Ansi.OFF);
+            java.util.regex.Matcher m = split.matcher(help);
+            assertFalse(m.find(), command + " at width " + width + ": " + (m.find(0) ? m.group() : ""));
+        }
+    }
+
+    /** The usage line of an option with a list value reads as one list, not a nested repetition. */
+    @ParameterizedTest
+    @ValueSource(strings = {"simulate", "calibrate", "plan"})
+    void snapshotOptionReadsWell(String command) {
+        String help = Main.commandLine().getSubcommands().get(command).getUsageMessage(picocli.CommandLine.Help.Ansi.OFF);
+        assertFalse(help.contains("......"), command + ": " + help);
+        assertFalse(help.contains("[,t1"), command + ": " + help);
+    }
 }

@@ -52,7 +52,7 @@ class ExperimentFileTest {
         Experiment e = ExperimentFile.read(write("ok.yaml", VALID));
         assertEquals("sweep", e.name());
         assertEquals(500, e.replicates());
-        assertEquals(Path.of("results/sweep"), e.output());
+        assertEquals(Path.of("results/sweep"), e.output(), "the default is relative to the working directory");
         List<Case> cases = e.cases();
         // keepers: 2 noise x 2 rounds; extorted: 2 chi x 2 noise x 2 rounds
         assertEquals(4 + 8, cases.size());
@@ -145,6 +145,10 @@ class ExperimentFileTest {
             Arguments.of(VALID.replace("name: extorted", "name: keepers"), ":6: pairs.name: duplicate case name 'keepers'"),
             Arguments.of(VALID.replace("chi: [2, 3]", "chj: [2, 3]"), "uses {chi} but grid.parameters has no 'chi'"),
             Arguments.of(VALID.replace("y: gtft", "y: gtfx"), ":5: pairs.keepers.y: unknown strategy 'gtfx'"),
+            // a pair written over several lines: the problem is on the field's line, not the "- name:" line (6)
+            Arguments.of(VALID.replace("    y: wsls", "    y: wslz"), ":8: pairs.extorted.y: unknown strategy 'wslz'"),
+            Arguments.of(VALID.replace("chi={chi},phi=0.05", "chi=0.5,phi=0.05"), ":7: pairs.extorted.x: chi must be"),
+            Arguments.of(VALID.replace("chi: [2, 3]", "chj: [2, 3]"), ":7: pairs.extorted: uses {chi}"),
             Arguments.of(VALID.replace("chi: [2, 3]", "chi: [0.5]"), "pairs.extorted.x: chi must be"),
             Arguments.of(VALID.replace("game: pd:3,0,5,1", "game: pd:3,0,2,1"), ":3: game: a prisoner's dilemma needs"),
             Arguments.of(VALID.replace("snapshots: [1, 10]", "snapshots: [1, 60]"), "round 60 is past the end"),
@@ -196,5 +200,19 @@ class ExperimentFileTest {
         ex = assertThrows(InvalidExperimentException.class, () -> Claims.read(noPair, e, cases));
         assertTrue(ex.getMessage().contains("pair: column is missing"), ex.getMessage());
         assertTrue(ex.getMessage().contains("CX: unknown column"), ex.getMessage());
+    }
+
+    /** output: is relative to the experiment file, like claims: (a file in another folder writes beside itself). */
+    @Test
+    void outputIsRelativeToTheExperimentFile() throws IOException {
+        Path sub = Files.createDirectories(dir.resolve("studies"));
+        Path file = sub.resolve("rel.yaml");
+        Files.writeString(file, VALID + "output: out/rel\n");
+        assertEquals(sub.toAbsolutePath().resolve("out/rel").normalize(), ExperimentFile.read(file).output());
+        Files.writeString(file, VALID + "output: ../elsewhere\n");
+        assertEquals(dir.toAbsolutePath().resolve("elsewhere").normalize(), ExperimentFile.read(file).output());
+        Path absolute = dir.toAbsolutePath().resolve("abs");
+        Files.writeString(file, VALID + "output: " + absolute + "\n");
+        assertEquals(absolute, ExperimentFile.read(file).output());
     }
 }

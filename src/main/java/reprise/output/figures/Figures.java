@@ -26,7 +26,7 @@ import reprise.game.State;
  * on a white background without plot border or grid. PNG files are rendered at 300 dpi by default;
  * SVG, PDF and EPS files keep text as text. Line styles carry meaning so a greyscale print still reads: a solid line is an exact value,
  * markers with vertical bars are simulated estimates with their intervals, a dashed line is a reference
- * (stationary value, sampling slope, diagonal). Colours come from the Okabe-Ito palette; the state order
+ * (stationary value, exact standard error, diagonal). Colours come from the Okabe-Ito palette; the state order
  * CC, CD, DC, DD always maps to blue, orange, bluish green, vermillion and circle, square, diamond,
  * triangle.
  *
@@ -182,6 +182,8 @@ public final class Figures {
                 Palette.STATES[s], Plot.MARKERS[s]);
         }
         addKeys(plot, anchors, "exact", "stationary");
+        plot.xTicksAt(data.simulated().stream().flatMapToDouble(e -> java.util.Arrays.stream(e.x())).distinct()
+            .toArray());
         return finish(plot, directory, baseName);
     }
 
@@ -221,12 +223,11 @@ public final class Figures {
      * Absolute error against game length on log-log axes, for one case.
      *
      * <p>x: game length n in rounds, log scale. y: |observed - stationary| of the chosen quantity, log
-     * scale. Markers joined by a thin line show the observed error; a dashed black line of slope -1/2,
-     * anchored at the first drawn point, shows how sampling error alone should shrink
-     * (c / sqrt(n)); the optional solid line shows the exact bias |E f_n - pi|, which for an ergodic chain
-     * falls like 1/n (slope -1). The reader should see the observed error follow the slope -1/2 line
-     * once n is large, and stay above the bias line: observed errors that fall faster than sampling allows,
-     * or level off, point to a problem. Zero or negative errors cannot go on a log axis; they are dropped
+     * scale. Markers with bars show the observed error and its interval; the optional dashed black line
+     * is the exact standard error of the observed mean (what sampling alone makes the error, falling like
+     * 1/sqrt(n)); the optional solid line is the exact bias |E f_n - pi|, which for an ergodic chain falls
+     * like 1/n (slope -1). The reader should see the observed errors scatter at about the height of the
+     * larger of the two lines: observed errors far above both, or levelling off, point to a problem. Zero or negative errors cannot go on a log axis; they are dropped
      * and the notes say how many.
      *
      * @param directory where to write (created if missing)
@@ -239,10 +240,12 @@ public final class Figures {
         check(directory, baseName, data);
         Plot plot = new Plot(style, data.title(), "game length n (rounds)",
             "|observed \u2212 stationary|, " + data.quantity(), AxisScale.LOG, AxisScale.LOG);
-        plot.legend(Styler.LegendPosition.InsideNE);
+        // below the axes, stacked: inside, the legend would hide markers or error bars wherever it went
+        plot.legend(Styler.LegendPosition.OutsideS);
+        plot.chart().getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
         plot.heading(data.subject());
         if (data.exactStandardError() != null) {
-            plot.curve("exact standard error (sampling alone)", "exact standard error",
+            plot.curve("exact standard error", "exact standard error",
                 data.exactStandardError().x(), data.exactStandardError().y(), Palette.BLACK, Plot.DASHED);
         }
         if (data.exactBias() != null) {
@@ -250,6 +253,7 @@ public final class Figures {
                 data.exactBias().y(), Palette.VERMILLION, Plot.SOLID);
         }
         plot.estimates("observed error", "observed error", data.observed(), Palette.BLUE, Plot.MARKERS[0]);
+        plot.xTicksAt(data.observed().x());
         return finish(plot, directory, baseName);
     }
 
@@ -259,7 +263,8 @@ public final class Figures {
      * <p>x: continuation probability delta. y: the payoff described by the data. Solid lines are the
      * exact payoffs of X (blue) and Y (orange); markers with bars are simulated payoffs and their
      * intervals (circles X, squares Y, shifted sideways by under 1% of the axis so that they do not hide
-     * each other). The reader should see each player's markers straddle that player's line.
+     * each other). Dashed horizontal lines are the stationary (delta to 1) payoffs, crosses the claimed
+     * values when given. The reader should see each player's markers straddle that player's line.
      *
      * @param directory where to write (created if missing)
      * @param baseName the file name without extension, already safe (see {@link FileNames#safe})
@@ -273,7 +278,13 @@ public final class Figures {
         Plot plot = new Plot(style, data.title(), lengths ? "expected game length 1/(1 \u2212 \u03b4) (rounds)"
             : "continuation probability \u03b4", data.payoffDescription(), lengths ? AxisScale.LOG : AxisScale.LINEAR,
             AxisScale.LINEAR);
-        plot.legend(Styler.LegendPosition.OutsideE);
+        // long strategy names would squeeze the axes from the side; below the axes they take height instead
+        if (Math.max(data.playerX().length(), data.playerY().length()) > 12) {
+            plot.legend(Styler.LegendPosition.OutsideS);
+            plot.chart().getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
+        } else {
+            plot.legend(Styler.LegendPosition.OutsideE);
+        }
         plot.heading(data.subject());
         Curve ex = lengths ? toLengths(data.exactX()) : data.exactX();
         Curve ey = lengths ? toLengths(data.exactY()) : data.exactY();
@@ -297,6 +308,8 @@ public final class Figures {
             lengths ? toLengths(data.simulatedX()) : data.simulatedX(), Palette.BLUE, Plot.MARKERS[0]);
         double[] ay = data.simulatedY() == null ? null : plot.estimates(null, y + " simulated payoff",
             lengths ? toLengths(data.simulatedY()) : data.simulatedY(), Palette.ORANGE, Plot.MARKERS[1]);
+        double[] claimX = claims(plot, x, data.claimedX(), lengths, Palette.BLUE);
+        double[] claimY = claims(plot, y, data.claimedY(), lengths, Palette.ORANGE);
         if (plot.hasSeries()) {
             var first = plot.chart().getSeriesMap().values().iterator().next();
             double kx = first.getXMin();
@@ -315,8 +328,34 @@ public final class Figures {
             if (stationary) {
                 plot.key("\u03b4 \u2192 1", Palette.BLACK, Plot.DASHED, kx, ky);
             }
+            if (lengths && data.simulatedX() != null) {
+                plot.xTicksAt(expectedLengths(data.simulatedX().x()));
+            }
+            if (claimX != null || claimY != null) {
+                double[] at = claimX != null ? claimX : claimY;
+                plot.markerKey("claimed value", claimX != null ? Palette.BLUE : Palette.ORANGE,
+                    org.knowm.xchart.style.markers.SeriesMarkers.CROSS, at[0], at[1]);
+            }
         }
         return finish(plot, directory, baseName);
+    }
+
+    /** Claimed values as crosses in the player's colour; returns the first cross, or null when none was drawn. */
+    private static double[] claims(Plot plot, String player, Curve c, boolean lengths, Color color) {
+        if (c == null) {
+            return null;
+        }
+        Curve cc = lengths ? toLengths(c) : c;
+        double[][] p = plot.drawable(player + " claimed payoff", cc.x(), cc.y());
+        if (p[0].length == 0) {
+            return null;
+        }
+        var s = plot.chart().addSeries("\u200bclaimed " + player, p[0], p[1]);
+        s.setXYSeriesRenderStyle(org.knowm.xchart.XYSeries.XYSeriesRenderStyle.Scatter);
+        s.setMarker(org.knowm.xchart.style.markers.SeriesMarkers.CROSS);
+        s.setMarkerColor(color);
+        s.setShowInLegend(false);
+        return new double[] {p[0][0], p[1][0]};
     }
 
     /** x = delta becomes x = 1/(1 - delta), the expected number of rounds. */

@@ -20,10 +20,13 @@ package reprise.output.figures;
  * @param stationaryX X's stationary (delta to 1) payoff, drawn as a dashed reference, or NaN for none
  * @param stationaryY Y's stationary payoff, or NaN for none
  * @param axis what the x-axis shows
+ * @param claimedX values of X's payoff claimed (for example in a paper) at some delta, drawn as crosses, or
+ *     null for none
+ * @param claimedY values of Y's payoff claimed, or null for none
  */
 public record PayoffData(String title, String subject, String playerX, String playerY, String payoffDescription,
     Curve exactX, Curve exactY, Estimates simulatedX, Estimates simulatedY, double stationaryX, double stationaryY,
-    ContinuationAxis axis) {
+    ContinuationAxis axis, Curve claimedX, Curve claimedY) {
 
     /**
      * The data with players named X and Y, no stationary reference and a delta axis.
@@ -38,7 +41,7 @@ public record PayoffData(String title, String subject, String playerX, String pl
     public PayoffData(String title, String payoffDescription, Curve exactX, Curve exactY, Estimates simulatedX,
         Estimates simulatedY) {
         this(title, "", "X", "Y", payoffDescription, exactX, exactY, simulatedX, simulatedY, Double.NaN, Double.NaN,
-            ContinuationAxis.PROBABILITY);
+            ContinuationAxis.PROBABILITY, null, null);
     }
 
     /**
@@ -50,7 +53,7 @@ public record PayoffData(String title, String subject, String playerX, String pl
      */
     public PayoffData withStationary(double x, double y) {
         return new PayoffData(title, subject, playerX, playerY, payoffDescription, exactX, exactY, simulatedX,
-            simulatedY, x, y, axis);
+            simulatedY, x, y, axis, claimedX, claimedY);
     }
 
     /**
@@ -63,7 +66,7 @@ public record PayoffData(String title, String subject, String playerX, String pl
      */
     public PayoffData withNames(String subject, String x, String y) {
         return new PayoffData(title, subject, x, y, payoffDescription, exactX, exactY, simulatedX, simulatedY,
-            stationaryX, stationaryY, axis);
+            stationaryX, stationaryY, axis, claimedX, claimedY);
     }
 
     /**
@@ -74,7 +77,19 @@ public record PayoffData(String title, String subject, String playerX, String pl
      */
     public PayoffData withAxis(ContinuationAxis a) {
         return new PayoffData(title, subject, playerX, playerY, payoffDescription, exactX, exactY, simulatedX,
-            simulatedY, stationaryX, stationaryY, a);
+            simulatedY, stationaryX, stationaryY, a, claimedX, claimedY);
+    }
+
+    /**
+     * The same data with claimed values overlaid.
+     *
+     * @param x X's claimed payoffs against delta, or null
+     * @param y Y's claimed payoffs against delta, or null
+     * @return a new instance
+     */
+    public PayoffData withClaims(Curve x, Curve y) {
+        return new PayoffData(title, subject, playerX, playerY, payoffDescription, exactX, exactY, simulatedX,
+            simulatedY, stationaryX, stationaryY, axis, x, y);
     }
 
     /**

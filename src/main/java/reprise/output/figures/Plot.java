@@ -133,6 +133,16 @@ final class Plot {
         return chart;
     }
 
+    /**
+     * Labels these values on a log x-axis besides the decades (for example a grid's game lengths).
+     * Nothing on a linear axis, whose ticks XChart chooses well.
+     */
+    void xTicksAt(double[] values) {
+        if (logX && values.length > 0) {
+            chart.addAnnotation(new GridTicks(values));
+        }
+    }
+
     List<String> notes() {
         return notes;
     }

@@ -45,7 +45,7 @@ class PrintFiguresTest {
             out.add(Arguments.of(size, "convergence", List.of("CC", "CD", "DC", "DD", "exact", "stationary",
                 "TFT vs WSLS, noise=0.05"), (BiFunction<Figures, Path, FigureResult>) (f, d) ->
                 f.convergence(d, "convergence", withSubject(SampleData.convergence(1)))));
-            out.add(Arguments.of(size, "error", List.of("observed error", "exact standard error (sampling alone)"),
+            out.add(Arguments.of(size, "error", List.of("observed error", "exact standard error"),
                 (BiFunction<Figures, Path, FigureResult>) (f, d) -> f.errorScaling(d, "error", errorWithSe())));
             out.add(Arguments.of(size, "payoff", List.of("TFT", "ALLD", "exact"),
                 (BiFunction<Figures, Path, FigureResult>) (f, d) -> f.payoffByContinuation(d, "payoff",
@@ -64,6 +64,37 @@ class PrintFiguresTest {
                     SampleData.gridVerdicts())));
         }
         return out.stream();
+    }
+
+    /**
+     * A log axis over game lengths labels the grid's lengths, not only the decades (XChart labels decades
+     * only; the lengths here are 10, 20, 50, ..., 10000; 5000 would touch the wider "10000" and is left unlabelled).
+     */
+    @org.junit.jupiter.api.Test
+    void logAxesLabelTheGridLengths() throws IOException {
+        FigureResult r = Figures.withDefaults().withSize(FigureSize.DOUBLE_COLUMN).withFormats(FigureFormat.SVG)
+            .convergence(dir, "lengths", SampleData.convergence(1));
+        String svg = Files.readString(r.files().get(0));
+        List<String> texts = new ArrayList<>();
+        Matcher m = TEXT.matcher(svg);
+        while (m.find()) {
+            texts.add(m.group(2));
+        }
+        for (String length : List.of("10", "20", "50", "100", "200", "500", "1000", "2000", "10000")) {
+            assertTrue(texts.contains(length), "tick label " + length + " missing: " + texts);
+        }
+    }
+
+    /** Claimed payoffs are drawn as crosses with a legend entry; the stationary lines with theirs. */
+    @org.junit.jupiter.api.Test
+    void payoffFigureOverlaysClaimedValues() throws IOException {
+        FigureResult r = Figures.withDefaults().withFormats(FigureFormat.SVG).payoffByContinuation(dir, "claims",
+            SampleData.payoff(3).withNames("", "X = tft", "Y = wsls").withStationary(2.3, 2.4)
+                .withClaims(new Curve(new double[] {0.5, 0.9}, new double[] {2.2, 2.3}), null));
+        String svg = Files.readString(r.files().get(0));
+        assertTrue(svg.contains(">claimed value<"), "legend names the claimed values");
+        assertTrue(svg.contains(">X = tft<") && svg.contains(">Y = wsls<"), "legend names the strategies");
+        assertTrue(svg.contains("\u03b4 \u2192 1"), "legend names the stationary reference");
     }
 
     /** Two pairs' payoff figures side by side, with panel letters, at double-column width. */
