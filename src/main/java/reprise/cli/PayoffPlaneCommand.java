@@ -9,6 +9,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
+import reprise.experiment.PayoffClouds;
 import reprise.experiment.PayoffPlane;
 import reprise.game.Horizon;
 import reprise.game.Noise;
@@ -19,7 +20,7 @@ import reprise.output.PayoffPlaneFigure;
 @Command(name = "payoff-plane", mixinStandardHelpOptions = true,
     description = {"Draws pi_Y against pi_X for a zero-determinant strategy of X: the feasible payoffs of the game, "
         + "the line the strategy enforces, and the exact payoff pair against each co-player for each game length "
-        + "(PNG). Prints the points as CSV: length, co_player, payoff_x, payoff_y, line_y (the line's pi_Y at "
+        + "(PNG), and with --games the payoffs of simulated single games as clouds. Prints the exact points as CSV: length, co_player, payoff_x, payoff_y, line_y (the line's pi_Y at "
         + "payoff_x) and off_line (payoff_y - line_y)."},
     exitCodeListHeading = "%nExit codes:%n", exitCodeList = {"0:ok", "2:bad input or usage", "3:internal error"})
 final class PayoffPlaneCommand implements Callable<Integer> {
@@ -53,6 +54,15 @@ final class PayoffPlaneCommand implements Callable<Integer> {
     @Option(names = "--out", required = true, paramLabel = "FILE", description = "The PNG file to write.")
     Path out;
 
+    @Option(names = "--games", paramLabel = "G", defaultValue = "0", description = "Also play G single games round "
+        + "by round per finite length and co-player and draw their payoffs per round as a cloud (0: none). "
+        + "Default: ${DEFAULT-VALUE}.")
+    int games;
+
+    @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Master seed of the simulated games. "
+        + "Default: ${DEFAULT-VALUE}.")
+    long seed;
+
     @Override
     public Integer call() {
         StageGame g;
@@ -77,8 +87,14 @@ final class PayoffPlaneCommand implements Callable<Integer> {
             }
             lengths.add(Horizon.continuation(d));
         }
-        PayoffPlane plane = PayoffPlane.of(g, x, against, new Noise(e[0], e[1], h[0], h[1]), lengths);
-        PayoffPlaneFigure.write(plane, out);
+        if (games < 0 || games > PayoffClouds.MOST_GAMES) {
+            throw new IllegalArgumentException("--games must be between 0 and " + PayoffClouds.MOST_GAMES + ": " + games);
+        }
+        Noise n = new Noise(e[0], e[1], h[0], h[1]);
+        PayoffPlane plane = PayoffPlane.of(g, x, against, n, lengths);
+        PayoffClouds clouds = games > 0 && lengths.size() > 1 ? PayoffClouds.play(g, x, against, n, lengths, games, seed)
+            : null;
+        PayoffPlaneFigure.write(plane, clouds, out);
         PrintWriter w = spec.commandLine().getOut();
         w.println("length,co_player,payoff_x,payoff_y,line_y,off_line");
         for (int k = 0; k < lengths.size(); k++) {

@@ -2,8 +2,6 @@ package reprise.output;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
-import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -45,6 +43,18 @@ public final class PayoffPlaneFigure {
      * @return the chart
      */
     public static XYChart chart(PayoffPlane d) {
+        return chart(d, null);
+    }
+
+    /**
+     * Builds the chart with simulated per-game payoffs drawn as small translucent points under the exact
+     * ones, in the colour of their game length.
+     *
+     * @param d the data
+     * @param clouds the simulated games, or null for none
+     * @return the chart
+     */
+    public static XYChart chart(PayoffPlane d, reprise.experiment.PayoffClouds clouds) {
         XYChart chart = new XYChartBuilder().width(900).height(760)
             .title("Payoff plane of " + d.strategy() + " (" + d.parameters().family() + ")")
             .xAxisTitle("payoff of X").yAxisTitle("payoff of Y").build();
@@ -72,6 +82,21 @@ public final class PayoffPlaneFigure {
         line.setLineColor(Color.BLACK);
         line.setMarker(SeriesMarkers.NONE);
         line.setLineStyle(new BasicStroke(2f));
+        if (clouds != null) {
+            for (int k = 0; k < clouds.lengths().size(); k++) {
+                int colour = d.lengths().indexOf(clouds.lengths().get(k));
+                Color c = SERIES[Math.max(0, colour) % SERIES.length];
+                for (int j = 0; j < clouds.coPlayers().size(); j++) {
+                    String name = j == 0 ? "simulated games, " + clouds.lengths().get(k).describe()
+                        : "games of " + clouds.lengths().get(k).describe() + " vs " + clouds.coPlayers().get(j);
+                    XYSeries cloud = chart.addSeries(name, clouds.payoffX()[k][j], clouds.payoffY()[k][j]);
+                    cloud.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+                    cloud.setMarker(SeriesMarkers.CIRCLE);
+                    cloud.setMarkerColor(new Color(c.getRed(), c.getGreen(), c.getBlue(), 60));
+                    cloud.setShowInLegend(j == 0);
+                }
+            }
+        }
         for (int k = 0; k < d.lengths().size(); k++) {
             Horizon h = d.lengths().get(k);
             XYSeries s = chart.addSeries(h == null ? "long run" : h.describe(), d.payoffX()[k], d.payoffY()[k]);
@@ -99,14 +124,21 @@ public final class PayoffPlaneFigure {
      * @return the file
      */
     public static Path write(PayoffPlane d, Path file) {
-        try {
-            if (file.toAbsolutePath().getParent() != null) {
-                Files.createDirectories(file.toAbsolutePath().getParent());
-            }
-            BitmapEncoder.saveBitmap(chart(d), file.toString(), BitmapEncoder.BitmapFormat.PNG);
-        } catch (IOException e) {
-            throw new UncheckedIOException("could not write " + file, e);
-        }
+        return write(d, null, file);
+    }
+
+    /**
+     * Writes the chart, with simulated games, as PNG, atomically ({@link AtomicFiles}).
+     *
+     * @param d the data
+     * @param clouds the simulated games, or null
+     * @param file the file (its folder is created)
+     * @return the file
+     */
+    public static Path write(PayoffPlane d, reprise.experiment.PayoffClouds clouds, Path file) {
+        XYChart chart = chart(d, clouds);
+        AtomicFiles.write(file, temporary -> Files.write(temporary,
+            BitmapEncoder.getBitmapBytes(chart, BitmapEncoder.BitmapFormat.PNG)));
         return file;
     }
 
