@@ -61,6 +61,8 @@ final class PopulationSchema {
     private Experiment.Correction correction = Experiment.Correction.HOLM;
     private Path output;
     private int selectionLine;
+    private int continuationLine;
+    private Map<String, Node> pop = Map.of();
 
     private PopulationSchema(Path file, Map<String, Node> top, Problems problems) {
         this.file = file;
@@ -153,41 +155,41 @@ final class PopulationSchema {
                 + "invasions: ...");
             return;
         }
-        Map<String, Node> p = YamlReader.mapping(pm, "population.", POPULATION_KEYS, problems);
-        strategies(p.get("strategies"), YamlReader.line(node));
-        String u = YamlReader.string(p, "update", "pairwise", problems).trim().toLowerCase(Locale.ROOT);
+        Map<String, Node> p = pop = prefixed(YamlReader.mapping(pm, "population.", POPULATION_KEYS, problems), "population.");
+        strategies(p.get("population.strategies"), YamlReader.line(node));
+        String u = YamlReader.string(p, "population.update", "pairwise", problems).trim().toLowerCase(Locale.ROOT);
         switch (u) {
             case "pairwise" -> update = Population.Update.PAIRWISE_COMPARISON;
             case "moran" -> update = Population.Update.MORAN_BIRTH_DEATH;
-            default -> problems.add(line(p, "update"), "population.update", "must be pairwise or moran: '" + u + "'");
+            default -> problems.add(line(p, "population.update"), "population.update", "must be pairwise or moran: '" + u + "'");
         }
-        String f = YamlReader.string(p, "fitness", "linear", problems).trim().toLowerCase(Locale.ROOT);
+        String f = YamlReader.string(p, "population.fitness", "linear", problems).trim().toLowerCase(Locale.ROOT);
         switch (f) {
             case "linear" -> fitness = Population.Fitness.LINEAR;
             case "exponential" -> fitness = Population.Fitness.EXPONENTIAL;
-            default -> problems.add(line(p, "fitness"), "population.fitness", "must be linear or exponential: '" + f
+            default -> problems.add(line(p, "population.fitness"), "population.fitness", "must be linear or exponential: '" + f
                 + "'");
         }
-        if (p.containsKey("fitness") && update != Population.Update.MORAN_BIRTH_DEATH) {
-            problems.add(line(p, "fitness"), "population.fitness", "is read by the Moran rule only (update: moran)");
+        if (p.containsKey("population.fitness") && update != Population.Update.MORAN_BIRTH_DEATH) {
+            problems.add(line(p, "population.fitness"), "population.fitness", "is read by the Moran rule only (update: moran)");
         }
-        String c = YamlReader.string(p, "co_players", "all", problems).trim();
+        String c = YamlReader.string(p, "population.co_players", "all", problems).trim();
         if (!c.equals("all")) {
-            Long m = YamlReader.asLong(new YamlReader.Scalar(c, line(p, "co_players")), "population.co_players", problems);
+            Long m = YamlReader.asLong(new YamlReader.Scalar(c, line(p, "population.co_players")), "population.co_players", problems);
             if (m != null && (m < 1 || m > Population.MAX_SIZE)) {
-                problems.add(line(p, "co_players"), "population.co_players", "must be 'all' or a sample size m of at "
+                problems.add(line(p, "population.co_players"), "population.co_players", "must be 'all' or a sample size m of at "
                     + "least 1: " + m);
             } else if (m != null) {
                 coPlayers = (int) (long) m;
             }
         }
         mutation(p);
-        if (p.containsKey("invasions")) {
-            invasions = YamlReader.longValue(p, "invasions", 1000, 0, MOST_INVASIONS, problems);
+        if (p.containsKey("population.invasions")) {
+            invasions = YamlReader.longValue(p, "population.invasions", 1000, 0, MOST_INVASIONS, problems);
         }
-        tolerance = YamlReader.doubleValue(p, "tolerance", 0.1, problems);
+        tolerance = YamlReader.doubleValue(p, "population.tolerance", 0.1, problems);
         if (!(tolerance > 0)) {
-            problems.add(line(p, "tolerance"), "population.tolerance", "must be a positive relative error: "
+            problems.add(line(p, "population.tolerance"), "population.tolerance", "must be a positive relative error: "
                 + ExperimentFile.num(tolerance));
         }
     }
@@ -228,15 +230,15 @@ final class PopulationSchema {
     }
 
     private void mutation(Map<String, Node> p) {
-        String m = YamlReader.string(p, "mutation", "none", problems).trim().toLowerCase(Locale.ROOT);
+        String m = YamlReader.string(p, "population.mutation", "none", problems).trim().toLowerCase(Locale.ROOT);
         switch (m) {
             case "none" -> mutation = PopulationExperiment.Mutation.NONE;
             case "rare" -> mutation = PopulationExperiment.Mutation.RARE;
             default -> {
-                Double r = YamlReader.asDouble(new YamlReader.Scalar(m, line(p, "mutation")), "population.mutation",
+                Double r = YamlReader.asDouble(new YamlReader.Scalar(m, line(p, "population.mutation")), "population.mutation",
                     problems);
                 if (r != null && !(r > 0 && r < 1)) {
-                    problems.add(line(p, "mutation"), "population.mutation", "must be none, rare or a rate in (0, 1): "
+                    problems.add(line(p, "population.mutation"), "population.mutation", "must be none, rare or a rate in (0, 1): "
                         + ExperimentFile.num(r));
                 } else if (r != null) {
                     mutation = PopulationExperiment.Mutation.RATE;
@@ -244,6 +246,12 @@ final class PopulationSchema {
                 }
             }
         }
+    }
+
+    private static Map<String, Node> prefixed(Map<String, Node> map, String prefix) {
+        Map<String, Node> out = new java.util.LinkedHashMap<>();
+        map.forEach((k, v) -> out.put(prefix + k, v));
+        return out;
     }
 
     private void grid() {
@@ -303,6 +311,7 @@ final class PopulationSchema {
     private void horizons(Map<String, Node> g, Node gridNode) {
         Node rounds = g.get("rounds");
         Node cont = g.get("continuation");
+        continuationLine = YamlReader.line(cont);
         if (rounds != null && cont != null) {
             problems.add(YamlReader.line(cont), "grid.continuation", "give either rounds: or continuation:, not both");
         } else if (rounds == null && cont == null) {
@@ -357,11 +366,9 @@ final class PopulationSchema {
 
     /** Rules joining fields: populations that can be built, Moran's needs, mutation rates, the grid's size. */
     private void rules() {
-        Node pop = top.get("population");
-        int popLine = YamlReader.line(pop);
         for (int n : sizes) {
             if (coPlayers > n - 1) {
-                problems.add(popLine, "population.co_players", "a sample of " + coPlayers + " co-players needs N of at "
+                problems.add(line(pop, "population.co_players"), "population.co_players", "a sample of " + coPlayers + " co-players needs N of at "
                     + "least " + (coPlayers + 1) + ": N = " + n);
             }
         }
@@ -379,12 +386,12 @@ final class PopulationSchema {
                 }
             }
             if (top.get("grid") instanceof MappingNode && horizons.stream().anyMatch(h -> h instanceof Horizon.Continuation)) {
-                problems.add(line(top, "grid"), "grid.continuation", "the Moran rule needs a fixed number of rounds "
+                problems.add(continuationLine, "grid.continuation", "the Moran rule needs a fixed number of rounds "
                     + "(fitness must be bounded for the simulated proposal and acceptance)");
             }
         }
         if (mutation == PopulationExperiment.Mutation.RATE && strategyNames.size() > 2) {
-            problems.add(popLine, "population.mutation", "an explicit rate is for two strategies (the exact stationary "
+            problems.add(line(pop, "population.mutation"), "population.mutation", "an explicit rate is for two strategies (the exact stationary "
                 + "distribution of the two-strategy chain); use 'rare' for " + strategyNames.size());
         }
         long pairs = (long) strategyNames.size() * (strategyNames.size() - 1);
