@@ -30,7 +30,7 @@ import reprise.game.Population;
 public final class PopulationFigures {
 
     /** Extra selection strengths on each exact curve. */
-    static final int EXTRA = 12;
+    static final int EXTRA = 6;
     /** The most figures one run draws. */
     static final int MOST_FIGURES = 60;
     private static final Color[] BASIS_COLOURS = {new Color(0xD55E00), new Color(0x0072B2), new Color(0x009E73)};
