@@ -9,6 +9,7 @@ import java.util.Map;
 import reprise.experiment.PopulationAnalysis;
 import reprise.experiment.PopulationExperiment;
 import reprise.experiment.Runner;
+import reprise.output.InvasionGraph;
 import reprise.output.PopulationCsv;
 import reprise.output.PopulationFigures;
 import reprise.output.PopulationReport;
@@ -21,7 +22,8 @@ import reprise.sim.Simulator;
  * A population experiment run on this machine, the entry point beside {@link LocalRun} for files with a
  * {@code population:} section: checks and locks the output folder ({@link OutputFolder}), computes the
  * exact side of every grid point, plays the invasions of every question (grid point and ordered (mutant,
- * resident) pair), analyses, and writes population.csv, abundance.csv, report.md, figures/ and run.json.
+ * resident) pair), analyses, and writes population.csv, abundance.csv, report.md, figures/ (fixation against
+ * selection strength; the invasion graph with rare mutations) and run.json.
  *
  * <p>Units: a question's invasions [0, n) are one unit, played by
  * {@link PopulationSimulator#invasions(int, int, long, long, int)} from the question's seed; each
@@ -137,7 +139,8 @@ public final class PopulationRun {
         Instant start) {
         PopulationCsv.writeFixation(dir.resolve("population.csv"), e, result);
         PopulationCsv.writeAbundance(dir.resolve("abundance.csv"), e, result);
-        List<Path> figures = PopulationFigures.draw(e, result, dir.resolve("figures"));
+        List<Path> figures = new ArrayList<>(PopulationFigures.draw(e, result, dir.resolve("figures")));
+        figures.addAll(InvasionGraph.draw(e, result, dir.resolve("figures")));
         List<String> outputs = new ArrayList<>(List.of("population.csv", "abundance.csv", "report.md", "run.json"));
         List<String> figureNames = new ArrayList<>();
         for (Path f : figures) {
