@@ -108,7 +108,8 @@ public final class PopulationFigures {
         }
         double[] x = xs.stream().mapToDouble(Double::doubleValue).toArray();
         String[] names = {"(a) stationary payoffs", "(b) expected payoffs", "(c) realised payoffs (exact)"};
-        for (PopulationAnalysis.Basis b : PopulationAnalysis.Basis.values()) {
+        for (PopulationAnalysis.Basis b : List.of(PopulationAnalysis.Basis.STATIONARY,
+            PopulationAnalysis.Basis.REALISED, PopulationAnalysis.Basis.EXPECTED)) {
             double[] y = new double[x.length];
             boolean any = false;
             for (int i = 0; i < x.length; i++) {
@@ -122,7 +123,9 @@ public final class PopulationFigures {
             s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
             s.setMarker(SeriesMarkers.NONE);
             s.setLineColor(BASIS_COLOURS[b.ordinal()]);
-            s.setLineStyle(new BasicStroke(b == PopulationAnalysis.Basis.REALISED ? 2.5f : 1.5f));
+            s.setLineStyle(b == PopulationAnalysis.Basis.EXPECTED ? new BasicStroke(2f, BasicStroke.CAP_BUTT,
+                BasicStroke.JOIN_MITER, 10f, new float[] {9f, 6f}, 0f)
+                : new BasicStroke(b == PopulationAnalysis.Basis.REALISED ? 2.5f : 1.5f));
         }
         XYSeries neutral = chart.addSeries("neutral 1/N", new double[] {0, max}, new double[] {1.0 / size, 1.0 / size});
         neutral.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
