@@ -131,11 +131,34 @@ public final class PopulationAnalysis {
      * @param exact the exact side of every grid point
      * @param rows the rows, point by point, pair by pair (mutant-major), then basis
      */
-    public record Result(List<PointExact> exact, List<Row> rows) {
-        /** @return 1 when any (c) row disagrees with the simulation, else 0 */
+    public record Result(List<PointExact> exact, List<Row> rows, List<AbundanceRow> abundances) {
+        /** @return 1 when any (c) row (fixation or abundance) disagrees with the simulation, else 0 */
         public int exitCode() {
-            return rows.stream().anyMatch(r -> r.basis() == Basis.REALISED && "disagrees".equals(r.verdict())) ? 1 : 0;
+            boolean fix = rows.stream().anyMatch(r -> r.basis() == Basis.REALISED && "disagrees".equals(r.verdict()));
+            boolean ab = abundances.stream().anyMatch(r -> r.basis() == Basis.REALISED
+                && "disagrees".equals(r.verdict()));
+            return fix || ab ? 1 : 0;
         }
+    }
+
+    /**
+     * One row of abundance.csv: a grid point, a basis and a strategy, with the simulated abundance of one
+     * long run with explicit mutation (batch means, valid for one autocorrelated run) where there is one.
+     *
+     * @param point the grid point
+     * @param basis the basis
+     * @param strategy the strategy's index
+     * @param abundance the exact abundance of the basis (NaN without a prediction)
+     * @param realised the exact abundance of basis (c)
+     * @param simulated the batch-means estimate (null without a run)
+     * @param interval its interval at 1 - alpha (null without a run)
+     * @param pValue the t test of the estimate against the basis' abundance (NaN without a run)
+     * @param adjusted the corrected p-value (NaN likewise)
+     * @param verdict consistent / disagrees for (c), describes / misdescribes for (a) and (b)
+     */
+    public record AbundanceRow(PopulationExperiment.Point point, Basis basis, int strategy, double abundance,
+        double realised, reprise.stats.Estimate simulated, Interval interval, double pValue, double adjusted,
+        String verdict) {
     }
 
     /**
@@ -227,6 +250,25 @@ public final class PopulationAnalysis {
      * @return the rows and the exit code
      */
     public static Result analyse(PopulationExperiment e, List<PointExact> exact, Map<Key, InvasionTally> tallies) {
+        return analyse(e, exact, tallies, Map.of());
+    }
+
+    /**
+     * Analyses the exact side against the invasions and the runs with explicit mutation.
+     *
+     * <p>Abundances: with an explicit rate, the fraction of strategy 0 over one run of a grid point is
+     * estimated by batch means ({@link reprise.stats.BatchMeans}) and tested against each basis' exact
+     * abundance by the t statistic with the estimate's degrees of freedom; each basis' p-values are
+     * corrected together (the abundance of strategy 1 is one minus it and is not tested again).
+     *
+     * @param e the experiment
+     * @param exact the exact side of every grid point, in point order
+     * @param tallies the invasions of every question
+     * @param runs the run with mutation of every grid point, by point index (empty without)
+     * @return the rows and the exit code
+     */
+    public static Result analyse(PopulationExperiment e, List<PointExact> exact, Map<Key, InvasionTally> tallies,
+        Map<Integer, reprise.sim.MutationRun> runs) {
         int k = e.strategies().size();
         List<Row> rows = new ArrayList<>();
         List<List<Double>> ps = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
@@ -281,7 +323,78 @@ public final class PopulationAnalysis {
             out.add(new Row(row.point(), row.mutant(), row.resident(), row.basis(), row.result(), row.realised(),
                 row.tally(), row.interval(), row.pValue(), adj, verdict, detected));
         }
-        return new Result(List.copyOf(exact), List.copyOf(out));
+        return new Result(List.copyOf(exact), List.copyOf(out), abundances(e, exact, runs));
+    }
+
+    private static List<AbundanceRow> abundances(PopulationExperiment e, List<PointExact> exact,
+        Map<Integer, reprise.sim.MutationRun> runs) {
+        List<AbundanceRow> raw = new ArrayList<>();
+        List<List<Double>> ps = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        for (PointExact px : exact) {
+            double[] real = px.abundance()[Basis.REALISED.ordinal()];
+            if (real == null) {
+                continue;
+            }
+            reprise.sim.MutationRun run = runs.get(px.point().index());
+            reprise.stats.Estimate est = run == null ? null : reprise.stats.BatchMeans.estimate(run.fractions());
+            for (Basis b : Basis.values()) {
+                double[] a = px.abundance()[b.ordinal()];
+                for (int i = 0; i < real.length; i++) {
+                    double value = a == null ? Double.NaN : a[i];
+                    reprise.stats.Estimate ei = est == null ? null : i == 0 ? est
+                        : new reprise.stats.Estimate(1 - est.value(), est.standardError(), est.degreesOfFreedom(),
+                            est.replicates());
+                    double p = Double.NaN;
+                    if (ei != null && i == 0 && !Double.isNaN(value)) {
+                        p = tTest(ei, value);
+                        ps.get(b.ordinal()).add(p);
+                    }
+                    raw.add(new AbundanceRow(px.point(), b, i, value, real[i], ei, ei == null ? null
+                        : ei.interval(1 - e.alpha()), p, Double.NaN, ""));
+                }
+            }
+        }
+        double[][] adjusted = new double[3][];
+        for (int b = 0; b < 3; b++) {
+            adjusted[b] = adjust(ps.get(b).stream().mapToDouble(Double::doubleValue).toArray(), e.correction());
+        }
+        int[] next = new int[3];
+        List<AbundanceRow> out = new ArrayList<>();
+        double[] lastAdjusted = new double[3];
+        for (AbundanceRow r : raw) {
+            int b = r.basis().ordinal();
+            double adj = Double.NaN;
+            if (!Double.isNaN(r.pValue())) {
+                adj = adjusted[b][next[b]++];
+                lastAdjusted[b] = adj;
+            } else if (r.simulated() != null && r.strategy() > 0 && !Double.isNaN(r.abundance())) {
+                adj = lastAdjusted[b];
+            }
+            String verdict;
+            if (Double.isNaN(r.abundance())) {
+                verdict = Verdict.NO_PREDICTION.word();
+            } else if (r.basis() == Basis.REALISED) {
+                verdict = Double.isNaN(adj) ? "" : adj < e.alpha() ? Verdict.DISAGREES.word()
+                    : Verdict.CONSISTENT.word();
+            } else {
+                verdict = Math.abs(r.abundance() / r.realised() - 1) <= e.tolerance() ? "describes" : "misdescribes";
+            }
+            out.add(new AbundanceRow(r.point(), r.basis(), r.strategy(), r.abundance(), r.realised(), r.simulated(),
+                r.interval(), r.pValue(), adj, verdict));
+        }
+        return List.copyOf(out);
+    }
+
+    /** Two-sided p-value of (estimate - value) / se against Student's t (normal for infinite df). */
+    private static double tTest(reprise.stats.Estimate est, double value) {
+        if (!(est.standardError() > 0)) {
+            return est.value() == value ? 1 : 0;
+        }
+        double t = Math.abs(est.value() - value) / est.standardError();
+        double tail = Double.isInfinite(est.degreesOfFreedom())
+            ? org.apache.commons.statistics.distribution.NormalDistribution.of(0, 1).survivalProbability(t)
+            : org.apache.commons.statistics.distribution.TDistribution.of(est.degreesOfFreedom()).survivalProbability(t);
+        return Math.min(1, 2 * tail);
     }
 
     private static double[] adjust(double[] raw, Experiment.Correction c) {

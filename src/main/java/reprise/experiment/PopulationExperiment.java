@@ -28,6 +28,8 @@ import reprise.game.StageGame;
  * @param mutation none, rare or an explicit rate
  * @param mu the explicit mutation rate (0 unless {@code mutation} is RATE)
  * @param invasions independent simulated invasions per grid point and ordered pair (0: exact only)
+ * @param updates the length in updates of the one simulated run with mutation per grid point (explicit rate
+ *     only; 0: none)
  * @param tolerance the relative error |rho / rho_c - 1| up to which a basis is said to describe the population
  * @param sizes the grid of population sizes N
  * @param selections the grid of selection strengths (beta or w)
@@ -41,7 +43,7 @@ import reprise.game.StageGame;
  */
 public record PopulationExperiment(Path file, String sha256, String name, String description, String gameText,
     StageGame game, List<String> strategyNames, List<MemoryStrategy> strategies, Population.Update update,
-    Population.Fitness fitness, int coPlayers, Mutation mutation, double mu, long invasions, double tolerance,
+    Population.Fitness fitness, int coPlayers, Mutation mutation, double mu, long invasions, long updates, double tolerance,
     List<Integer> sizes, List<Double> selections, List<Double> noise, List<Double> misperception,
     List<Horizon> horizons, long seed, double alpha, Experiment.Correction correction, Path output) {
 

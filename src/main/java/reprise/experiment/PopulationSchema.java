@@ -26,11 +26,13 @@ final class PopulationSchema {
     static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "population", "grid", "seed",
         "alpha", "correction", "output");
     static final List<String> POPULATION_KEYS = List.of("strategies", "update", "fitness", "co_players", "mutation",
-        "invasions", "tolerance");
+        "invasions", "updates", "tolerance");
     static final List<String> GRID_KEYS = List.of("size", "selection", "noise", "misperception", "rounds",
         "continuation");
     /** The most invasions per grid point and ordered pair (exact binomial tests take an int count). */
     static final long MOST_INVASIONS = 100_000_000L;
+    /** The longest run with mutation, in updates (one record per update). */
+    static final long MOST_UPDATES = 100_000_000L;
     /** The most grid points times ordered pairs. */
     static final long MOST_QUESTIONS = 10_000L;
 
@@ -50,6 +52,7 @@ final class PopulationSchema {
     private PopulationExperiment.Mutation mutation = PopulationExperiment.Mutation.NONE;
     private double mu;
     private long invasions = 1000;
+    private long updates;
     private double tolerance = 0.1;
     private final List<Integer> sizes = new ArrayList<>();
     private final List<Double> selections = new ArrayList<>();
@@ -103,7 +106,7 @@ final class PopulationSchema {
         s.rules();
         problems.throwIfAny();
         return new PopulationExperiment(file, hash, s.name, s.description, s.gameText, s.game, s.strategyNames,
-            s.strategies, s.update, s.fitness, s.coPlayers, s.mutation, s.mu, s.invasions, s.tolerance, s.sizes,
+            s.strategies, s.update, s.fitness, s.coPlayers, s.mutation, s.mu, s.invasions, s.updates, s.tolerance, s.sizes,
             s.selections, s.noise, s.misperception, s.horizons, s.seed, s.alpha, s.correction, s.output);
     }
 
@@ -186,6 +189,18 @@ final class PopulationSchema {
         mutation(p);
         if (p.containsKey("population.invasions")) {
             invasions = YamlReader.longValue(p, "population.invasions", 1000, 0, MOST_INVASIONS, problems);
+        }
+        if (p.containsKey("population.updates")) {
+            updates = YamlReader.longValue(p, "population.updates", 0, 0, MOST_UPDATES, problems);
+            if (mutation != PopulationExperiment.Mutation.RATE) {
+                problems.add(line(p, "population.updates"), "population.updates", "is the length of the simulated run "
+                    + "with mutation: give mutation: a rate");
+            } else if (updates > 0 && updates < 4) {
+                problems.add(line(p, "population.updates"), "population.updates", "a run needs at least 4 updates "
+                    + "(batch means): " + updates);
+            }
+        } else if (mutation == PopulationExperiment.Mutation.RATE) {
+            updates = 100_000;
         }
         tolerance = YamlReader.doubleValue(p, "population.tolerance", 0.1, problems);
         if (!(tolerance > 0)) {

@@ -27,7 +27,8 @@ public final class PopulationCsv {
         "simulated_time", "p_value", "adjusted_p", "verdict", "relative_error", "same_side_of_neutral",
         "detected_by_invasions");
     /** The columns of abundance.csv after the point's. */
-    public static final List<String> ABUNDANCE_COLUMNS = List.of("mutation", "basis", "strategy", "abundance");
+    public static final List<String> ABUNDANCE_COLUMNS = List.of("mutation", "basis", "strategy", "abundance",
+        "simulated", "standard_error", "lower", "upper", "p_value", "adjusted_p", "verdict", "relative_error");
 
     private PopulationCsv() {
     }
@@ -75,7 +76,8 @@ public final class PopulationCsv {
     }
 
     /**
-     * Writes abundance.csv (the header only when the experiment has no mutation).
+     * Writes abundance.csv (the header only when the experiment has no mutation): exact abundances of each
+     * basis, and with an explicit rate the simulated abundance of one run (batch means) with its test.
      *
      * @param file the target
      * @param e the experiment
@@ -86,22 +88,22 @@ public final class PopulationCsv {
         header.addAll(ABUNDANCE_COLUMNS);
         AtomicFiles.writeText(file, w -> {
             try (CSVPrinter out = printer(w, header)) {
-                for (PopulationAnalysis.PointExact px : result.exact()) {
-                    for (PopulationAnalysis.Basis b : PopulationAnalysis.Basis.values()) {
-                        double[] a = px.abundance()[b.ordinal()];
-                        if (a == null) {
-                            continue;
-                        }
-                        for (int i = 0; i < a.length; i++) {
-                            List<String> cells = pointCells(px.point(), e);
-                            cells.add(e.mutation() == PopulationExperiment.Mutation.RATE ? num(e.mu())
-                                : e.mutation().label());
-                            cells.add(b.label());
-                            cells.add(e.strategyNames().get(i));
-                            cells.add(num(a[i]));
-                            out.printRecord(cells);
-                        }
-                    }
+                for (PopulationAnalysis.AbundanceRow r : result.abundances()) {
+                    List<String> cells = pointCells(r.point(), e);
+                    cells.add(e.mutation() == PopulationExperiment.Mutation.RATE ? num(e.mu()) : e.mutation().label());
+                    cells.add(r.basis().label());
+                    cells.add(e.strategyNames().get(r.strategy()));
+                    cells.add(num(r.abundance()));
+                    boolean sim = r.simulated() != null;
+                    cells.add(sim ? num(r.simulated().value()) : "");
+                    cells.add(sim ? num(r.simulated().standardError()) : "");
+                    cells.add(sim ? num(r.interval().lower()) : "");
+                    cells.add(sim ? num(r.interval().upper()) : "");
+                    cells.add(num(r.pValue()));
+                    cells.add(num(r.adjusted()));
+                    cells.add(r.verdict());
+                    cells.add(num(r.abundance() / r.realised() - 1));
+                    out.printRecord(cells);
                 }
             }
         });

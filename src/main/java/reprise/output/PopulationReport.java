@@ -130,6 +130,16 @@ public final class PopulationReport {
                     s.append(" |\n");
                 }
                 s.append("\n");
+                for (PopulationAnalysis.AbundanceRow ar : c.result().abundances()) {
+                    if (ar.point().index() == px.point().index() && ar.strategy() == 0 && ar.simulated() != null
+                        && ar.basis() == PopulationAnalysis.Basis.REALISED) {
+                        s.append("Simulated abundance of ").append(e.strategyNames().get(0)).append(" (one run of ")
+                            .append(e.updates()).append(" updates, batch means): ").append(fmt(ar.simulated().value()))
+                            .append(" [").append(fmt(ar.interval().lower())).append(", ")
+                            .append(fmt(ar.interval().upper())).append("], against (c): ").append(ar.verdict())
+                            .append(".\n\n");
+                    }
+                }
             }
         }
         if (!c.figures().isEmpty()) {

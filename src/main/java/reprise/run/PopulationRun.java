@@ -15,6 +15,7 @@ import reprise.output.PopulationFigures;
 import reprise.output.PopulationReport;
 import reprise.output.Provenance;
 import reprise.sim.InvasionTally;
+import reprise.sim.MutationRun;
 import reprise.sim.PopulationSimulator;
 import reprise.sim.Simulator;
 
@@ -28,7 +29,9 @@ import reprise.sim.Simulator;
  * <p>Units: a question's invasions [0, n) are one unit, played by
  * {@link PopulationSimulator#invasions(int, int, long, long, int)} from the question's seed; each
  * invasion's stream derives from (question seed, invasion index), so the tallies are identical for any
- * number of threads. Checkpoints, {@code --resume} and shards are not yet available for population runs:
+ * number of threads. With an explicit mutation rate each grid point also plays one run of {@code updates}
+ * updates from all-b (seed of the unused diagonal question (p k + 0) k + 0, stream index 0), recorded every
+ * update for batch means. Checkpoints, {@code --resume} and shards are not yet available for population runs:
  * the units are small and a run is repeated whole.
  */
 public final class PopulationRun {
@@ -132,7 +135,15 @@ public final class PopulationRun {
                 }
             }
         }
-        return PopulationAnalysis.analyse(e, exact, tallies);
+        Map<Integer, MutationRun> runs = new LinkedHashMap<>();
+        if (e.mutation() == PopulationExperiment.Mutation.RATE && e.updates() > 0) {
+            for (PopulationExperiment.Point p : points) {
+                PopulationSimulator sim = new PopulationSimulator(e.game(), e.strategies(), p.noise(), p.horizon(),
+                    p.population(), questionSeed(e.seed(), p.index() * k * k));
+                runs.put(p.index(), sim.mutationRun(0, 1, e.mu(), 0, e.updates(), 1, 0));
+            }
+        }
+        return PopulationAnalysis.analyse(e, exact, tallies, runs);
     }
 
     private static void write(Path dir, PopulationExperiment e, RunSettings settings, PopulationAnalysis.Result result,

@@ -36,7 +36,7 @@ class PopulationRunTest {
     private static PopulationExperiment smallDemo() {
         PopulationExperiment e = PopulationFile.read(DEMO);
         return new PopulationExperiment(e.file(), e.sha256(), e.name(), e.description(), e.gameText(), e.game(),
-            e.strategyNames(), e.strategies(), e.update(), e.fitness(), e.coPlayers(), e.mutation(), e.mu(), 150,
+            e.strategyNames(), e.strategies(), e.update(), e.fitness(), e.coPlayers(), e.mutation(), e.mu(), 150, 0,
             e.tolerance(), List.of(10), e.selections(), e.noise(), e.misperception(), e.horizons(), e.seed(), 0.001,
             e.correction(), e.output());
     }
@@ -102,6 +102,27 @@ class PopulationRunTest {
         PopulationAnalysis.Result r = PopulationAnalysis.analyse(e, List.of(x), t);
         assertEquals(1, r.exitCode());
         assertEquals("disagrees", r.rows().get(2).verdict());
+    }
+
+    /**
+     * An explicit mutation rate: the simulated abundance of one long run (batch means) against the exact
+     * stationary distribution of the population chain with basis (c). Failure budget: one test at alpha =
+     * 0.001 (batch means is asymptotic in the run length; 2 x 10^5 updates are many mixing times for N = 6).
+     */
+    @Test
+    void explicitMutationAbundanceIsSimulatedAndAgrees() throws Exception {
+        Path f = tmp.resolve("m.yaml");
+        Files.writeString(f, "experiment: m\npopulation:\n  strategies: [wsls, alld]\n  mutation: 0.05\n"
+            + "  invasions: 0\n  updates: 200000\ngrid:\n  size: [6]\n  selection: [1]\n  noise: [0.05]\n"
+            + "  rounds: [5]\nseed: 5\nalpha: 0.001\n");
+        PopulationExperiment e = PopulationFile.read(f);
+        PopulationAnalysis.Result r = PopulationRun.compute(e, 2, (d, t) -> { });
+        assertEquals(0, r.exitCode());
+        PopulationAnalysis.AbundanceRow c = r.abundances().stream().filter(a -> a.basis()
+            == PopulationAnalysis.Basis.REALISED && a.strategy() == 0).findFirst().orElseThrow();
+        assertEquals("consistent", c.verdict());
+        assertTrue(c.interval().contains(c.abundance()), c.toString());
+        assertEquals(3 * 2, r.abundances().size());
     }
 
     /** check on a population file refuses --resume and --shard with one line and exit 2. */
