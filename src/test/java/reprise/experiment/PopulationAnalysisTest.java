@@ -51,6 +51,36 @@ class PopulationAnalysisTest {
         }
     }
 
+    /**
+     * The Moran birth-death rule with linear fitness and deterministic payoffs (ALLC, ALLD, no errors): Nowak,
+     * Sasaki, Taylor &amp; Fudenberg (2004), "Emergence of cooperation and evolutionary stability in finite
+     * populations", Nature 428, 646-650, Eq. (1): rho_A = 1 / (1 + sum_{k=1}^{N-1} prod_{j=1}^{k} g_j / f_j),
+     * f_j = 1 - w + w pi_A(j), g_j = 1 - w + w pi_B(j), with the payoffs of the pairwise test above.
+     */
+    @Test
+    void moranLinearFitnessGivesNowaksClosedFormForEveryBasis() throws Exception {
+        PopulationExperiment e = read("experiment: t\npopulation:\n  strategies: [allc, alld]\n  update: moran\n"
+            + "  fitness: linear\n  invasions: 0\ngrid:\n  size: [8]\n  selection: [0.2]\n  rounds: [3]\n");
+        PopulationAnalysis.PointExact x = PopulationAnalysis.exact(e, e.points().get(0));
+        double[][] m = {{3, 0}, {5, 1}};
+        int n = 8;
+        double w = 0.2;
+        for (int mutant = 0; mutant < 2; mutant++) {
+            int res = 1 - mutant;
+            double sum = 0;
+            double prod = 1;
+            for (int k = 1; k <= n - 1; k++) {
+                double piA = ((k - 1) * m[mutant][mutant] + (n - k) * m[mutant][res]) / (n - 1);
+                double piB = (k * m[res][mutant] + (n - k - 1) * m[res][res]) / (n - 1);
+                prod *= (1 - w + w * piB) / (1 - w + w * piA);
+                sum += prod;
+            }
+            for (PopulationAnalysis.Basis b : PopulationAnalysis.Basis.values()) {
+                assertEquals(1 / (1 + sum), x.fixation()[b.ordinal()][mutant][res], 1e-12, b + " mutant " + mutant);
+            }
+        }
+    }
+
     private static double traulsen(double a, double b, double c, double d, int n, double beta) {
         double sum = 0;
         double prod = 1;
