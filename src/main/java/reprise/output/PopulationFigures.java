@@ -161,6 +161,114 @@ public final class PopulationFigures {
         return chart;
     }
 
+    /**
+     * Abundance against game length: for every population size, selection strength and error level whose
+     * grid has at least two lengths, and mutation rare or a rate, one figure with each strategy's exact
+     * abundance for (c) realised payoffs (solid), (b) expected payoffs (markers) and (a) stationary payoffs
+     * (dashed; the same for every length), and with a rate the simulated abundances with their intervals.
+     *
+     * @param e the experiment
+     * @param result the analysis
+     * @param folder the figures folder
+     * @return the files written
+     */
+    public static List<Path> drawAbundance(PopulationExperiment e, PopulationAnalysis.Result result, Path folder) {
+        List<Path> out = new ArrayList<>();
+        if (e.mutation() == PopulationExperiment.Mutation.NONE || e.horizons().size() < 2) {
+            return out;
+        }
+        List<PopulationExperiment.Point> points = e.points();
+        int h = e.horizons().size();
+        for (int start = 0; start < points.size() && out.size() < MOST_FIGURES; start += h) {
+            List<PopulationAnalysis.PointExact> line = result.exact().subList(start, start + h);
+            PopulationExperiment.Point first = points.get(start);
+            String name = ("abundance-N" + first.population().size() + "-selection" + first.population().selection()
+                + "-noise" + first.noise().executionX() + (first.noise().perceptionX() > 0 ? "-misperception"
+                + first.noise().perceptionX() : "")).replaceAll("[^A-Za-z0-9._=-]", "_") + ".png";
+            out.add(write(abundanceChart(e, result, line), folder.resolve(name)));
+        }
+        return out;
+    }
+
+    private static XYChart abundanceChart(PopulationExperiment e, PopulationAnalysis.Result result,
+        List<PopulationAnalysis.PointExact> line) {
+        PopulationExperiment.Point first = line.get(0).point();
+        boolean rounds = first.horizon() instanceof reprise.game.Horizon.Rounds;
+        XYChart chart = new XYChartBuilder().width(900).height(640).title("Abundance, N = " + first.population().size()
+            + ", selection " + first.population().selection() + ", noise " + first.noise().executionX() + ", mutation "
+            + (e.mutation() == PopulationExperiment.Mutation.RATE ? Double.toString(e.mu()) : "rare"))
+            .xAxisTitle(rounds ? "rounds per game" : "continuation probability").yAxisTitle("abundance").build();
+        chart.getStyler().setChartBackgroundColor(Color.WHITE);
+        chart.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
+        chart.getStyler().setXAxisLogarithmic(rounds);
+        double[] x = new double[line.size()];
+        for (int i = 0; i < x.length; i++) {
+            reprise.game.Horizon hz = line.get(i).point().horizon();
+            x[i] = hz instanceof reprise.game.Horizon.Rounds r ? r.count()
+                : ((reprise.game.Horizon.Continuation) hz).probability();
+        }
+        Color[] colours = {new Color(0x0072B2), new Color(0xD55E00), new Color(0x009E73), new Color(0xE69F00),
+            new Color(0xCC79A7), new Color(0x56B4E9), Color.BLACK};
+        int k = e.strategies().size();
+        for (int sIdx = 0; sIdx < k; sIdx++) {
+            Color colour = colours[sIdx % colours.length];
+            for (PopulationAnalysis.Basis b : List.of(PopulationAnalysis.Basis.REALISED,
+                PopulationAnalysis.Basis.EXPECTED, PopulationAnalysis.Basis.STATIONARY)) {
+                double[] y = new double[x.length];
+                boolean any = false;
+                for (int i = 0; i < x.length; i++) {
+                    double[] a = line.get(i).abundance()[b.ordinal()];
+                    y[i] = a == null ? Double.NaN : a[sIdx];
+                    any |= a != null;
+                }
+                if (!any) {
+                    continue;
+                }
+                XYSeries s = chart.addSeries(e.strategyNames().get(sIdx) + " " + b.label(), x, y);
+                s.setLineColor(colour);
+                s.setMarkerColor(colour);
+                if (b == PopulationAnalysis.Basis.REALISED) {
+                    s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+                    s.setMarker(SeriesMarkers.NONE);
+                    s.setLineStyle(new BasicStroke(2.5f));
+                } else if (b == PopulationAnalysis.Basis.EXPECTED) {
+                    s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+                    s.setMarker(SeriesMarkers.DIAMOND);
+                } else {
+                    s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+                    s.setMarker(SeriesMarkers.NONE);
+                    s.setLineStyle(new BasicStroke(1.5f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
+                        new float[] {6f, 4f}, 0f));
+                }
+            }
+            List<Double> sx = new ArrayList<>();
+            List<Double> sy = new ArrayList<>();
+            for (int i = 0; i < x.length; i++) {
+                int idx = line.get(i).point().index();
+                for (PopulationAnalysis.AbundanceRow r : result.abundances()) {
+                    if (r.point().index() == idx && r.strategy() == sIdx && r.simulated() != null
+                        && r.basis() == PopulationAnalysis.Basis.REALISED) {
+                        sx.add(x[i]);
+                        sy.add(r.simulated().value());
+                        XYSeries bar = chart.addSeries("ci " + sIdx + " " + idx, new double[] {x[i], x[i]},
+                            new double[] {r.interval().lower(), r.interval().upper()});
+                        bar.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+                        bar.setMarker(SeriesMarkers.NONE);
+                        bar.setLineColor(colour);
+                        bar.setShowInLegend(false);
+                    }
+                }
+            }
+            if (!sx.isEmpty()) {
+                XYSeries sim = chart.addSeries(e.strategyNames().get(sIdx) + " simulated", sx, sy);
+                sim.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+                sim.setMarker(SeriesMarkers.CIRCLE);
+                sim.setMarkerColor(colour);
+            }
+        }
+        return chart;
+    }
+
     private static Path write(XYChart chart, Path file) {
         try {
             Files.createDirectories(file.toAbsolutePath().getParent());

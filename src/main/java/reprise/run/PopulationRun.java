@@ -151,6 +151,7 @@ public final class PopulationRun {
         PopulationCsv.writeFixation(dir.resolve("population.csv"), e, result);
         PopulationCsv.writeAbundance(dir.resolve("abundance.csv"), e, result);
         List<Path> figures = new ArrayList<>(PopulationFigures.draw(e, result, dir.resolve("figures")));
+        figures.addAll(PopulationFigures.drawAbundance(e, result, dir.resolve("figures")));
         figures.addAll(InvasionGraph.draw(e, result, dir.resolve("figures")));
         List<String> outputs = new ArrayList<>(List.of("population.csv", "abundance.csv", "report.md", "run.json"));
         List<String> figureNames = new ArrayList<>();

@@ -70,8 +70,8 @@ class PopulationRunTest {
         assertEquals(1 + 8 * 12 * 3, csv.size());
         assertEquals(1 + 8 * 3 * 4, Files.readAllLines(out.resolve("abundance.csv")).size());
         try (var s = Files.list(out.resolve("figures"))) {
-            assertEquals(4 * 12 + 8, s.count(), "one fixation figure per N, noise, length and ordered pair, one "
-                + "invasion graph per grid point");
+            assertEquals(4 * 12 + 4 + 8, s.count(), "one fixation figure per N, noise, length and ordered pair, "
+                + "one abundance figure per N, selection and noise, one invasion graph per grid point");
         }
         String report = Files.readString(out.resolve("report.md"));
         assertTrue(report.contains("(c) realised payoffs against the invasions: 96 of 96 consistent"), report);
