@@ -3,6 +3,7 @@ package reprise.run;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -31,8 +32,9 @@ import reprise.sim.Simulator;
  * invasion's stream derives from (question seed, invasion index), so the tallies are identical for any
  * number of threads. With an explicit mutation rate each grid point also plays one run of {@code updates}
  * updates from all-b (seed of the unused diagonal question (p k + 0) k + 0, stream index 0), recorded every
- * update for batch means. Checkpoints, {@code --resume} and shards are not yet available for population runs:
- * the units are small and a run is repeated whole.
+ * update for batch means (not checkpointed: replayed, identically, on resume). Each finished question is
+ * saved at once in {@link PopulationCheckpoint}; {@code --resume} continues an interrupted run with results
+ * identical to an uninterrupted one. Shards and merge are not yet available for population runs.
  */
 public final class PopulationRun {
 
@@ -79,7 +81,7 @@ public final class PopulationRun {
      * Runs a population experiment.
      *
      * @param e the experiment
-     * @param settings where and how ({@code resume} is refused)
+     * @param settings where and how (with {@code resume}, finished questions come from the checkpoint)
      * @param listener progress
      * @return the finished run
      * @throws IllegalArgumentException one line, if the folder does not allow the run
@@ -87,15 +89,34 @@ public final class PopulationRun {
     public static Done run(PopulationExperiment e, RunSettings settings, Listener listener) {
         Instant start = Instant.now();
         String where = e.file() + ": " + (settings.out() != null ? "--out" : "output");
-        if (settings.resume()) {
-            throw new IllegalArgumentException(e.file() + ": --resume is not available for population experiments "
-                + "(they have no checkpoint; run again, with --force)");
-        }
         Path dir = settings.out() != null ? settings.out() : e.output();
-        OutputFolder.Lock lock = OutputFolder.open(where, dir, settings.force(), false, null);
+        PopulationCheckpoint checkpoint = PopulationCheckpoint.of(dir);
+        Map<Integer, InvasionTally> done = new HashMap<>();
+        OutputFolder.Lock lock = OutputFolder.open(where, dir, settings.force(), settings.resume(), () -> {
+            if (checkpoint.size() > 0 && !settings.resume() && !settings.force()) {
+                throw new IllegalArgumentException(where + ": " + dir + " holds an interrupted population run ("
+                    + checkpoint.size() + " finished questions in " + PopulationCheckpoint.FOLDER + "); use --resume to "
+                    + "continue it or --force to start over");
+            }
+            if (settings.resume()) {
+                try {
+                    done.putAll(checkpoint.load(e, settings.toolVersion()));
+                } catch (IllegalArgumentException ex) {
+                    throw new IllegalArgumentException(e.file() + ": --resume: " + ex.getMessage(), ex);
+                }
+            }
+        });
         try {
-            PopulationAnalysis.Result result = compute(e, settings.threads(), listener);
+            if (!settings.resume()) {
+                checkpoint.delete();
+            }
+            int[] saved = {0};
+            PopulationAnalysis.Result result = compute(e, settings.threads(), listener, done, (q, t) -> {
+                checkpoint.save(e, settings.toolVersion(), q, t);
+                TestHold.afterUnitSaved(++saved[0]);
+            });
             write(dir, e, settings, result, start);
+            checkpoint.delete();
             return new Done(result, dir);
         } finally {
             lock.close();
@@ -111,12 +132,28 @@ public final class PopulationRun {
      * @return the analysis
      */
     public static PopulationAnalysis.Result compute(PopulationExperiment e, int threads, Listener listener) {
+        return compute(e, threads, listener, Map.of(), (q, t) -> { });
+    }
+
+    /**
+     * As {@link #compute(PopulationExperiment, int, Listener)}, taking finished questions from a checkpoint and
+     * handing each newly finished one to {@code saved}.
+     *
+     * @param e the experiment
+     * @param threads worker threads
+     * @param listener progress
+     * @param done tallies of finished questions by question index q
+     * @param saved told of each question played here (q and its tally)
+     * @return the analysis
+     */
+    static PopulationAnalysis.Result compute(PopulationExperiment e, int threads, Listener listener,
+        Map<Integer, InvasionTally> done, java.util.function.BiConsumer<Integer, InvasionTally> saved) {
         List<PopulationExperiment.Point> points = e.points();
         int k = e.strategies().size();
         List<PopulationAnalysis.PointExact> exact = new ArrayList<>();
         Map<PopulationAnalysis.Key, InvasionTally> tallies = new LinkedHashMap<>();
         int total = points.size() * k * (k - 1);
-        int done = 0;
+        int finished = 0;
         for (PopulationExperiment.Point p : points) {
             exact.add(PopulationAnalysis.exact(e, p));
             for (int m = 0; m < k; m++) {
@@ -128,10 +165,14 @@ public final class PopulationRun {
                         int q = (p.index() * k + m) * k + r;
                         PopulationSimulator sim = new PopulationSimulator(e.game(), e.strategies(), p.noise(),
                             p.horizon(), p.population(), questionSeed(e.seed(), q));
-                        tallies.put(new PopulationAnalysis.Key(p.index(), m, r),
-                            sim.invasions(m, r, 0, e.invasions(), threads));
+                        InvasionTally t = done.get(q);
+                        if (t == null) {
+                            t = sim.invasions(m, r, 0, e.invasions(), threads);
+                            saved.accept(q, t);
+                        }
+                        tallies.put(new PopulationAnalysis.Key(p.index(), m, r), t);
                     }
-                    listener.questionDone(++done, total);
+                    listener.questionDone(++finished, total);
                 }
             }
         }

@@ -79,6 +79,45 @@ class PopulationRunTest {
             "a finished run is not replaced without --force");
     }
 
+    /**
+     * An interrupted run (stopped after 30 of 96 questions) continues with --resume and writes a
+     * population.csv byte-identical to an uninterrupted run's; without --resume or --force the folder is
+     * refused; a changed unit file is refused naming it.
+     */
+    @Test
+    void interruptedRunResumesToIdenticalResults() throws Exception {
+        PopulationExperiment e = smallDemo();
+        Path whole = tmp.resolve("whole");
+        PopulationRun.run(e, new RunSettings(whole, 2, false, false, List.of("check"), "test"), (d, t) -> { });
+        Path cut = tmp.resolve("cut");
+        RunSettings plain = new RunSettings(cut, 2, false, false, List.of("check"), "test");
+        assertThrows(IllegalStateException.class, () -> PopulationRun.run(e, plain, (d, t) -> {
+            if (d == 30) {
+                throw new IllegalStateException("stop");
+            }
+        }));
+        Path units = cut.resolve(PopulationCheckpoint.FOLDER);
+        try (var s = Files.list(units)) {
+            assertEquals(30, s.count());
+        }
+        IllegalArgumentException refused = assertThrows(IllegalArgumentException.class,
+            () -> PopulationRun.run(e, plain, (d, t) -> { }));
+        assertTrue(refused.getMessage().contains("holds an interrupted population run (30 finished"),
+            refused.getMessage());
+        Path one = units.resolve("q-1.json");
+        String original = Files.readString(one);
+        Files.writeString(one, original.replace("\"fixations\":", "\"fixations\":1"));
+        RunSettings resume = new RunSettings(cut, 1, false, true, List.of("check", "--resume"), "test");
+        IllegalArgumentException edited = assertThrows(IllegalArgumentException.class,
+            () -> PopulationRun.run(e, resume, (d, t) -> { }));
+        assertTrue(edited.getMessage().contains("q-1.json: fails its sha256 checksum"), edited.getMessage());
+        Files.writeString(one, original);
+        PopulationRun.run(e, resume, (d, t) -> { });
+        assertEquals(Files.readString(whole.resolve("population.csv")), Files.readString(cut.resolve("population.csv")));
+        assertEquals(Files.readString(whole.resolve("abundance.csv")), Files.readString(cut.resolve("abundance.csv")));
+        assertTrue(!Files.exists(units), "the checkpoint is deleted after the outputs");
+    }
+
     /** Invasion streams derive from (question seed, invasion index): the tallies do not depend on threads. */
     @Test
     void talliesDoNotDependOnThreads() {
