@@ -63,6 +63,9 @@ final class CheckCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        if (reprise.experiment.PopulationFile.declares(file)) {
+            return PopulationCheck.run(this);
+        }
         if (shard != null || merge != null) {
             return Shards.fromCheck(this);
         }

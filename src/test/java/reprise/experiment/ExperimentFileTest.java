@@ -93,7 +93,8 @@ class ExperimentFileTest {
 
     static Stream<Path> bundledExperiments() throws IOException {
         try (Stream<Path> s = Files.list(Path.of("experiments"))) {
-            return s.filter(p -> p.toString().endsWith(".yaml")).sorted().toList().stream();
+            return s.filter(p -> p.toString().endsWith(".yaml") && !PopulationFile.declares(p)).sorted().toList()
+                .stream();
         }
     }
 
