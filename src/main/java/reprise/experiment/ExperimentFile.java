@@ -30,21 +30,39 @@ public final class ExperimentFile {
      */
     public static Experiment read(Path file) {
         Problems problems = new Problems(file.toString());
-        byte[] bytes;
-        String text;
+        Source source = source(file, problems);
+        return parse(file, source.text(), sha256(source.bytes()), problems);
+    }
+
+    /**
+     * An experiment file's bytes and text.
+     *
+     * @param bytes the bytes as read
+     * @param text the decoded text
+     */
+    record Source(byte[] bytes, String text) {
+    }
+
+    /**
+     * Reads an experiment file (pairs or population) through {@link InputFiles}, with the experiment-file
+     * size cap; a file that cannot be read is its only problem, thrown at once.
+     *
+     * @param file the file
+     * @param problems where the problem goes
+     * @return the bytes and text
+     * @throws InvalidExperimentException when the file cannot be read as UTF-8 text
+     */
+    static Source source(Path file, Problems problems) {
         try {
-            bytes = InputFiles.bytes(file, "experiment file", InputFiles.MOST_EXPERIMENT_BYTES);
-            text = InputFiles.decode(bytes, "experiment file");
+            byte[] bytes = InputFiles.bytes(file, "experiment file", InputFiles.MOST_EXPERIMENT_BYTES);
+            return new Source(bytes, InputFiles.decode(bytes, "experiment file"));
         } catch (IllegalArgumentException e) {
             problems.add(0, "file", e.getMessage());
-            problems.throwIfAny();
-            throw new IllegalStateException(e);
         } catch (IOException e) {
             problems.add(0, "file", "cannot be read: " + e.getMessage());
-            problems.throwIfAny();
-            throw new IllegalStateException(e);
         }
-        return parse(file, text, sha256(bytes), problems);
+        problems.throwIfAny();
+        throw new IllegalStateException("unreachable: a problem was added");
     }
 
     static Experiment parse(Path file, String text, String hash, Problems problems) {

@@ -41,20 +41,9 @@ public final class PopulationFile {
      */
     public static PopulationExperiment read(Path file) {
         Problems problems = new Problems(file.toString());
-        byte[] bytes;
-        String text;
-        try {
-            bytes = InputFiles.bytes(file, "experiment file", InputFiles.MOST_EXPERIMENT_BYTES);
-            text = InputFiles.decode(bytes, "experiment file");
-        } catch (IllegalArgumentException e) {
-            problems.add(0, "file", e.getMessage());
-            problems.throwIfAny();
-            throw new IllegalStateException(e);
-        } catch (IOException e) {
-            problems.add(0, "file", "cannot be read: " + e.getMessage());
-            problems.throwIfAny();
-            throw new IllegalStateException(e);
-        }
+        ExperimentFile.Source source = ExperimentFile.source(file, problems);
+        byte[] bytes = source.bytes();
+        String text = source.text();
         Node root = YamlReader.compose(text, problems);
         problems.throwIfAny();
         if (!PopulationSchema.declares(root)) {
