@@ -161,9 +161,23 @@ final class ExperimentSchema {
     }
 
     private void horizons(Map<String, Node> grid, Node gridNode) {
+        readHorizons(grid, gridNode, Long.MAX_VALUE, builder.horizons, problems);
+    }
+
+    /**
+     * Reads a grid's {@code rounds:} or {@code continuation:} list (exactly one of them) into horizons,
+     * reporting bad values and repeats with their lines. Shared by pair and population experiments.
+     *
+     * @param grid the grid's entries
+     * @param gridNode the grid node (for its line)
+     * @param mostRounds the largest fixed length allowed ({@link Long#MAX_VALUE}: no limit but 1 at least)
+     * @param horizons where the horizons go, in file order
+     * @param problems where problems go
+     */
+    static void readHorizons(Map<String, Node> grid, Node gridNode, long mostRounds, List<Horizon> horizons,
+        Problems problems) {
         Node rounds = grid.get("rounds");
         Node cont = grid.get("continuation");
-        List<Horizon> horizons = builder.horizons;
         if (rounds != null && cont != null) {
             problems.add(YamlReader.line(cont), "grid.continuation", "give either rounds: or continuation:, not both");
         } else if (rounds == null && cont == null) {
@@ -172,8 +186,9 @@ final class ExperimentSchema {
         } else if (rounds != null) {
             for (YamlReader.Scalar s : YamlReader.scalars(rounds, "grid.rounds", problems)) {
                 Long n = YamlReader.asLong(s, "grid.rounds", problems);
-                if (n != null && n < 1) {
-                    problems.add(s.line(), "grid.rounds", "must be at least 1: " + n);
+                if (n != null && (n < 1 || n > mostRounds)) {
+                    problems.add(s.line(), "grid.rounds", mostRounds == Long.MAX_VALUE ? "must be at least 1: " + n
+                        : "must be 1 to " + mostRounds + " rounds: " + n);
                 } else if (n != null) {
                     horizons.add(Horizon.rounds(n));
                 }

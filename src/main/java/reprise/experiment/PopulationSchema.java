@@ -324,36 +324,8 @@ final class PopulationSchema {
     }
 
     private void horizons(Map<String, Node> g, Node gridNode) {
-        Node rounds = g.get("rounds");
-        Node cont = g.get("continuation");
-        continuationLine = YamlReader.line(cont);
-        if (rounds != null && cont != null) {
-            problems.add(YamlReader.line(cont), "grid.continuation", "give either rounds: or continuation:, not both");
-        } else if (rounds == null && cont == null) {
-            problems.add(YamlReader.line(gridNode), "grid", "needs rounds: (fixed game lengths) or continuation: "
-                + "(probabilities of another round)");
-        } else if (rounds != null) {
-            for (YamlReader.Scalar s : YamlReader.scalars(rounds, "grid.rounds", problems)) {
-                Long n = YamlReader.asLong(s, "grid.rounds", problems);
-                if (n != null && (n < 1 || n > 1_000_000)) {
-                    problems.add(s.line(), "grid.rounds", "must be 1 to 1000000 rounds: " + n);
-                } else if (n != null) {
-                    horizons.add(Horizon.rounds(n));
-                }
-            }
-        } else {
-            for (YamlReader.Scalar s : YamlReader.scalars(cont, "grid.continuation", problems)) {
-                Double d = YamlReader.asDouble(s, "grid.continuation", problems);
-                if (d != null && !(d >= 0 && d < 1)) {
-                    problems.add(s.line(), "grid.continuation", "must be a probability in [0, 1) (1 would never "
-                        + "end): " + ExperimentFile.num(d));
-                } else if (d != null) {
-                    horizons.add(Horizon.continuation(d));
-                }
-            }
-        }
-        YamlReader.duplicates(horizons.stream().map(Horizon::describe).toList(), YamlReader.line(gridNode), "grid",
-            problems);
+        continuationLine = YamlReader.line(g.get("continuation"));
+        ExperimentSchema.readHorizons(g, gridNode, 1_000_000, horizons, problems);
     }
 
     private void numbers() {
