@@ -60,6 +60,10 @@ final class PopulationCheck {
             out.println(String.format(Locale.ROOT, "  %s payoffs describe the population in %d of %d", b.label(),
                 describes, questions));
         }
+        if (!done.result().claims().isEmpty()) {
+            long bad = done.result().claims().stream().filter(r -> "disagrees".equals(r.verdict())).count();
+            out.println(String.format(Locale.ROOT, "  claims: %d of %d disagree", bad, done.result().claims().size()));
+        }
         out.flush();
         return done.exitCode();
     }

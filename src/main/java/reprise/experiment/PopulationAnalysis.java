@@ -131,14 +131,51 @@ public final class PopulationAnalysis {
      * @param exact the exact side of every grid point
      * @param rows the rows, point by point, pair by pair (mutant-major), then basis
      */
-    public record Result(List<PointExact> exact, List<Row> rows, List<AbundanceRow> abundances) {
-        /** @return 1 when any (c) row (fixation or abundance) disagrees with the simulation, else 0 */
+    public record Result(List<PointExact> exact, List<Row> rows, List<AbundanceRow> abundances,
+        List<ClaimRow> claims) {
+        /**
+         * The analysis without claims.
+         *
+         * @param exact the exact side
+         * @param rows the fixation rows
+         * @param abundances the abundance rows
+         */
+        public Result(List<PointExact> exact, List<Row> rows, List<AbundanceRow> abundances) {
+            this(exact, rows, abundances, List.of());
+        }
+
+        /**
+         * @return 1 when any (c) row (fixation or abundance) disagrees with the simulation or any claim
+         *     disagrees, else 0
+         */
         public int exitCode() {
             boolean fix = rows.stream().anyMatch(r -> r.basis() == Basis.REALISED && "disagrees".equals(r.verdict()));
             boolean ab = abundances.stream().anyMatch(r -> r.basis() == Basis.REALISED
                 && "disagrees".equals(r.verdict()));
-            return fix || ab ? 1 : 0;
+            boolean cl = claims.stream().anyMatch(r -> "disagrees".equals(r.verdict()));
+            return fix || ab || cl ? 1 : 0;
         }
+    }
+
+    /**
+     * One claim of the claims file checked: against the exact value of basis (c) within the claim's tolerance,
+     * and against the simulation (fixation: the exact binomial test of the invasions' count; abundance with an
+     * explicit rate: the batch-means t test), its p-value corrected in the same family as the (c) rows.
+     *
+     * @param claim the claim
+     * @param point its grid point
+     * @param exact the exact value of basis (c)
+     * @param tally the invasions of the claimed question (fixation; null otherwise or without invasions)
+     * @param simulated the batch-means estimate (abundance with a run; null otherwise)
+     * @param pValue the test's p-value (NaN without a simulation)
+     * @param adjusted the corrected p-value (NaN likewise)
+     * @param exactAgrees whether |claim - exact| is within the claim's margin around the exact value
+     * @param detected whether the simulation rejects the claim after correction
+     * @param verdict consistent (agrees with the exact value and is not rejected) or disagrees
+     */
+    public record ClaimRow(reprise.experiment.PopulationClaims.Claim claim, PopulationExperiment.Point point,
+        double exact, InvasionTally tally, reprise.stats.Estimate simulated, double pValue, double adjusted,
+        boolean exactAgrees, boolean detected, String verdict) {
     }
 
     /**
@@ -298,6 +335,36 @@ public final class PopulationAnalysis {
                 }
             }
         }
+        List<ClaimRow> claimRows = new ArrayList<>();
+        List<Double> abundanceClaimPs = new ArrayList<>();
+        for (PopulationClaims.Claim c : e.claims()) {
+            PointExact px = exact.get(c.point());
+            double p = Double.NaN;
+            if (c.kind() == PopulationClaims.Kind.FIXATION) {
+                InvasionTally t = tallies.get(new Key(c.point(), c.mutant(), c.resident()));
+                if (t != null && t.invasions() > 0) {
+                    p = BinomialTest.withDefaults().test(Math.toIntExact(t.invasions()), Math.toIntExact(t.fixations()),
+                        c.value()).getPValue();
+                    ps.get(Basis.REALISED.ordinal()).add(p);
+                }
+                claimRows.add(new ClaimRow(c, px.point(), px.fixation()[Basis.REALISED.ordinal()][c.mutant()]
+                    [c.resident()], t, null, p, Double.NaN, false, false, ""));
+            } else {
+                reprise.sim.MutationRun run = runs.get(c.point());
+                reprise.stats.Estimate est = null;
+                if (run != null) {
+                    est = reprise.stats.BatchMeans.estimate(run.fractions());
+                    if (c.strategy() == 1) {
+                        est = new reprise.stats.Estimate(1 - est.value(), est.standardError(), est.degreesOfFreedom(),
+                            est.replicates());
+                    }
+                    p = tTest(est, c.value());
+                    abundanceClaimPs.add(p);
+                }
+                claimRows.add(new ClaimRow(c, px.point(), px.abundance()[Basis.REALISED.ordinal()][c.strategy()], null,
+                    est, p, Double.NaN, false, false, ""));
+            }
+        }
         double[][] adjusted = new double[3][];
         for (int b = 0; b < 3; b++) {
             double[] raw = ps.get(b).stream().mapToDouble(Double::doubleValue).toArray();
@@ -323,11 +390,27 @@ public final class PopulationAnalysis {
             out.add(new Row(row.point(), row.mutant(), row.resident(), row.basis(), row.result(), row.realised(),
                 row.tally(), row.interval(), row.pValue(), adj, verdict, detected));
         }
-        return new Result(List.copyOf(exact), List.copyOf(out), abundances(e, exact, runs));
+        double[] abundanceClaimAdjusted = new double[abundanceClaimPs.size()];
+        List<AbundanceRow> abundanceRows = abundances(e, exact, runs, abundanceClaimPs, abundanceClaimAdjusted);
+        int nextAbundance = 0;
+        int realised = Basis.REALISED.ordinal();
+        List<ClaimRow> claimsOut = new ArrayList<>();
+        for (ClaimRow c : claimRows) {
+            double adj = Double.NaN;
+            if (!Double.isNaN(c.pValue())) {
+                adj = c.claim().kind() == PopulationClaims.Kind.FIXATION ? adjusted[realised][next[realised]++]
+                    : abundanceClaimAdjusted[nextAbundance++];
+            }
+            boolean agrees = Math.abs(c.claim().value() - c.exact()) <= c.claim().tolerance().margin(c.exact());
+            boolean detected = adj < e.alpha();
+            claimsOut.add(new ClaimRow(c.claim(), c.point(), c.exact(), c.tally(), c.simulated(), c.pValue(), adj,
+                agrees, detected, agrees && !detected ? Verdict.CONSISTENT.word() : Verdict.DISAGREES.word()));
+        }
+        return new Result(List.copyOf(exact), List.copyOf(out), abundanceRows, List.copyOf(claimsOut));
     }
 
     private static List<AbundanceRow> abundances(PopulationExperiment e, List<PointExact> exact,
-        Map<Integer, reprise.sim.MutationRun> runs) {
+        Map<Integer, reprise.sim.MutationRun> runs, List<Double> claimPs, double[] claimAdjusted) {
         List<AbundanceRow> raw = new ArrayList<>();
         List<List<Double>> ps = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
         for (PointExact px : exact) {
@@ -354,10 +437,13 @@ public final class PopulationAnalysis {
                 }
             }
         }
+        int own = ps.get(Basis.REALISED.ordinal()).size();
+        ps.get(Basis.REALISED.ordinal()).addAll(claimPs);
         double[][] adjusted = new double[3][];
         for (int b = 0; b < 3; b++) {
             adjusted[b] = adjust(ps.get(b).stream().mapToDouble(Double::doubleValue).toArray(), e.correction());
         }
+        System.arraycopy(adjusted[Basis.REALISED.ordinal()], own, claimAdjusted, 0, claimAdjusted.length);
         int[] next = new int[3];
         List<AbundanceRow> out = new ArrayList<>();
         double[] lastAdjusted = new double[3];

@@ -40,12 +40,65 @@ import reprise.game.StageGame;
  * @param alpha the level of every test
  * @param correction the multiple-testing correction over the (c) tests of the file
  * @param output the output folder
+ * @param claimsFile the claims file ({@code population.claims}, resolved against the experiment's folder), or null
+ * @param claims the claims read from it, one per matched grid point and question or strategy (empty without)
  */
 public record PopulationExperiment(Path file, String sha256, String name, String description, String gameText,
     StageGame game, List<String> strategyNames, List<MemoryStrategy> strategies, Population.Update update,
     Population.Fitness fitness, int coPlayers, Mutation mutation, double mu, long invasions, long updates, double tolerance,
     List<Integer> sizes, List<Double> selections, List<Double> noise, List<Double> misperception,
-    List<Horizon> horizons, long seed, double alpha, Experiment.Correction correction, Path output) {
+    List<Horizon> horizons, long seed, double alpha, Experiment.Correction correction, Path output, Path claimsFile,
+    List<PopulationClaims.Claim> claims) {
+
+    /**
+     * An experiment without claims.
+     *
+     * @param file the experiment file
+     * @param sha256 its SHA-256
+     * @param name the name
+     * @param description free text
+     * @param gameText the stage game as written
+     * @param game the stage game
+     * @param strategyNames the strategies as written
+     * @param strategies the strategies
+     * @param update the update rule
+     * @param fitness the Moran fitness map
+     * @param coPlayers 0 for all, else m
+     * @param mutation the mutation
+     * @param mu the rate
+     * @param invasions invasions per question
+     * @param updates updates of the run with mutation
+     * @param tolerance the relative tolerance
+     * @param sizes N
+     * @param selections beta or w
+     * @param noise execution errors
+     * @param misperception perception errors
+     * @param horizons game lengths
+     * @param seed the master seed
+     * @param alpha the level
+     * @param correction the correction
+     * @param output the output folder
+     */
+    public PopulationExperiment(Path file, String sha256, String name, String description, String gameText,
+        StageGame game, List<String> strategyNames, List<MemoryStrategy> strategies, Population.Update update,
+        Population.Fitness fitness, int coPlayers, Mutation mutation, double mu, long invasions, long updates,
+        double tolerance, List<Integer> sizes, List<Double> selections, List<Double> noise, List<Double> misperception,
+        List<Horizon> horizons, long seed, double alpha, Experiment.Correction correction, Path output) {
+        this(file, sha256, name, description, gameText, game, strategyNames, strategies, update, fitness, coPlayers,
+            mutation, mu, invasions, updates, tolerance, sizes, selections, noise, misperception, horizons, seed, alpha,
+            correction, output, null, List.of());
+    }
+
+    /**
+     * @param file the claims file
+     * @param read its claims
+     * @return this experiment with those claims
+     */
+    public PopulationExperiment withClaims(Path file, List<PopulationClaims.Claim> read) {
+        return new PopulationExperiment(this.file, sha256, name, description, gameText, game, strategyNames, strategies,
+            update, fitness, coPlayers, mutation, mu, invasions, updates, tolerance, sizes, selections, noise,
+            misperception, horizons, seed, alpha, correction, output, file, read);
+    }
 
     /** How mutation enters the population. */
     public enum Mutation {
@@ -71,6 +124,7 @@ public record PopulationExperiment(Path file, String sha256, String name, String
         noise = List.copyOf(noise);
         misperception = List.copyOf(misperception);
         horizons = List.copyOf(horizons);
+        claims = List.copyOf(claims);
     }
 
     /**

@@ -50,6 +50,7 @@ public final class PopulationFile {
             problems.add(0, "population", "is required in a population experiment");
             problems.throwIfAny();
         }
-        return PopulationSchema.read(file, root, ExperimentFile.sha256(bytes), problems);
+        PopulationExperiment e = PopulationSchema.read(file, root, ExperimentFile.sha256(bytes), problems);
+        return e.claimsFile() == null ? e : e.withClaims(e.claimsFile(), PopulationClaims.read(e.claimsFile(), e));
     }
 }

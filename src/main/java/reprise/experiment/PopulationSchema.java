@@ -26,7 +26,7 @@ final class PopulationSchema {
     static final List<String> TOP_KEYS = List.of("experiment", "description", "game", "population", "grid", "seed",
         "alpha", "correction", "output");
     static final List<String> POPULATION_KEYS = List.of("strategies", "update", "fitness", "co_players", "mutation",
-        "invasions", "updates", "tolerance");
+        "invasions", "updates", "tolerance", "claims");
     static final List<String> GRID_KEYS = List.of("size", "selection", "noise", "misperception", "rounds",
         "continuation");
     /** The most invasions per grid point and ordered pair (exact binomial tests take an int count). */
@@ -63,6 +63,7 @@ final class PopulationSchema {
     private double alpha;
     private Experiment.Correction correction = Experiment.Correction.HOLM;
     private Path output;
+    private Path claims;
     private int selectionLine;
     private int continuationLine;
     private Map<String, Node> pop = Map.of();
@@ -107,7 +108,7 @@ final class PopulationSchema {
         problems.throwIfAny();
         return new PopulationExperiment(file, hash, s.name, s.description, s.gameText, s.game, s.strategyNames,
             s.strategies, s.update, s.fitness, s.coPlayers, s.mutation, s.mu, s.invasions, s.updates, s.tolerance, s.sizes,
-            s.selections, s.noise, s.misperception, s.horizons, s.seed, s.alpha, s.correction, s.output);
+            s.selections, s.noise, s.misperception, s.horizons, s.seed, s.alpha, s.correction, s.output, s.claims, List.of());
     }
 
     private int line(Map<String, Node> map, String key) {
@@ -202,6 +203,7 @@ final class PopulationSchema {
         } else if (mutation == PopulationExperiment.Mutation.RATE) {
             updates = 100_000;
         }
+        claims(p);
         tolerance = YamlReader.doubleValue(p, "population.tolerance", 0.1, problems);
         if (!(tolerance > 0)) {
             problems.add(line(p, "population.tolerance"), "population.tolerance", "must be a positive relative error: "
@@ -396,5 +398,22 @@ final class PopulationSchema {
             m = Math.min(m, d);
         }
         return m;
+    }
+
+    /** population.claims: a claims file relative to the experiment's folder, which must exist. */
+    private void claims(Map<String, Node> p) {
+        String text = YamlReader.string(p, "population.claims", null, problems);
+        if (text == null) {
+            return;
+        }
+        Path base = file.toAbsolutePath().getParent();
+        Path c = (base == null ? Path.of(text) : base.resolve(text)).normalize();
+        if (java.nio.file.Files.isDirectory(c)) {
+            problems.add(line(p, "population.claims"), "population.claims", "is a folder, not a claims file: " + c);
+        } else if (!java.nio.file.Files.isRegularFile(c)) {
+            problems.add(line(p, "population.claims"), "population.claims", "no such file: " + c);
+        } else {
+            claims = c;
+        }
     }
 }

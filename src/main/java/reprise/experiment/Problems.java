@@ -18,6 +18,11 @@ final class Problems {
         numbers.add(line);
     }
 
+    /** @return how many problems have been added */
+    int size() {
+        return lines.size();
+    }
+
     boolean isEmpty() {
         return lines.isEmpty();
     }

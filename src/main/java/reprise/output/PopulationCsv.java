@@ -7,6 +7,7 @@ import java.util.List;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 import reprise.experiment.PopulationAnalysis;
+import reprise.experiment.PopulationClaims;
 import reprise.experiment.PopulationExperiment;
 import reprise.game.Horizon;
 import reprise.game.Population;
@@ -71,6 +72,35 @@ public final class PopulationCsv {
                     cells.add(Double.isNaN(r.adjusted()) ? "" : Boolean.toString(r.detected()));
                     out.printRecord(cells);
                 }
+                for (PopulationAnalysis.ClaimRow r : result.claims()) {
+                    if (r.claim().kind() != PopulationClaims.Kind.FIXATION) {
+                        continue;
+                    }
+                    List<String> cells = pointCells(r.point(), e);
+                    cells.add(e.strategyNames().get(r.claim().mutant()));
+                    cells.add(e.strategyNames().get(r.claim().resident()));
+                    cells.add("claim");
+                    cells.add(num(r.claim().value()));
+                    cells.add(num(r.claim().value() * r.point().population().size()));
+                    cells.add("line " + r.claim().line());
+                    cells.add(num(r.claim().tolerance().margin(r.exact())));
+                    cells.add("");
+                    boolean sim = r.tally() != null && r.tally().invasions() > 0;
+                    cells.add(sim ? Long.toString(r.tally().invasions()) : "");
+                    cells.add(sim ? Long.toString(r.tally().fixations()) : "");
+                    cells.add(sim ? num(r.tally().fixationFrequency()) : "");
+                    cells.add("");
+                    cells.add("");
+                    cells.add("");
+                    cells.add(num(r.pValue()));
+                    cells.add(num(r.adjusted()));
+                    cells.add(r.verdict());
+                    cells.add(r.exact() == 0 ? "" : num(r.claim().value() / r.exact() - 1));
+                    double n = 1.0 / r.point().population().size();
+                    cells.add(Boolean.toString(Math.signum(r.claim().value() - n) == Math.signum(r.exact() - n)));
+                    cells.add(Double.isNaN(r.adjusted()) ? "" : Boolean.toString(r.detected()));
+                    out.printRecord(cells);
+                }
             }
         });
     }
@@ -103,6 +133,26 @@ public final class PopulationCsv {
                     cells.add(num(r.adjusted()));
                     cells.add(r.verdict());
                     cells.add(num(r.abundance() / r.realised() - 1));
+                    out.printRecord(cells);
+                }
+                for (PopulationAnalysis.ClaimRow r : result.claims()) {
+                    if (r.claim().kind() != PopulationClaims.Kind.ABUNDANCE) {
+                        continue;
+                    }
+                    List<String> cells = pointCells(r.point(), e);
+                    cells.add(e.mutation() == PopulationExperiment.Mutation.RATE ? num(e.mu()) : e.mutation().label());
+                    cells.add("claim");
+                    cells.add(e.strategyNames().get(r.claim().strategy()));
+                    cells.add(num(r.claim().value()));
+                    boolean sim = r.simulated() != null;
+                    cells.add(sim ? num(r.simulated().value()) : "");
+                    cells.add(sim ? num(r.simulated().standardError()) : "");
+                    cells.add("");
+                    cells.add("");
+                    cells.add(num(r.pValue()));
+                    cells.add(num(r.adjusted()));
+                    cells.add(r.verdict());
+                    cells.add(r.exact() == 0 ? "" : num(r.claim().value() / r.exact() - 1));
                     out.printRecord(cells);
                 }
             }

@@ -6,6 +6,7 @@ import java.time.Instant;
 import java.util.List;
 import java.util.Locale;
 import reprise.experiment.PopulationAnalysis;
+import reprise.experiment.PopulationClaims;
 import reprise.experiment.PopulationExperiment;
 
 /**
@@ -93,6 +94,7 @@ public final class PopulationReport {
                 .append(side).append("; rejected by the invasions in ").append(detected).append(".\n");
         }
         s.append("\n");
+        claims(s, e, c.result());
         for (PopulationAnalysis.PointExact px : c.result().exact()) {
             s.append("## ").append(px.point().name()).append("\n\n");
             s.append("| mutant | resident | 1/N | (a) stationary | (b) expected | (c) realised | method | simulated "
@@ -152,6 +154,35 @@ public final class PopulationReport {
         s.append("reprise ").append(c.toolVersion()).append(", ").append(Duration.between(c.start(), c.end())
             .toMillis() / 1000.0).append(" s.\n");
         return s.toString();
+    }
+
+    /** The claims section: one row per claim and grid point (nothing without claims). */
+    private static void claims(StringBuilder s, PopulationExperiment e, PopulationAnalysis.Result result) {
+        List<PopulationAnalysis.ClaimRow> rows = result.claims();
+        if (rows.isEmpty()) {
+            return;
+        }
+        long bad = rows.stream().filter(r -> "disagrees".equals(r.verdict())).count();
+        s.append("## Claims\n\n").append(rows.size() - bad).append(" of ").append(rows.size())
+            .append(" claims consistent").append(bad > 0 ? ", **" + bad + " disagree**" : "").append(" (").append(
+                e.claimsFile().getFileName()).append("; each against the exact (c) value within its tolerance, and "
+                + "against the simulation, corrected with the (c) rows).\n\n");
+        s.append("| line | grid point | claim | claimed | (c) exact | tolerance | agrees with (c) | simulated | "
+            + "adjusted p | verdict |\n|---|---|---|---|---|---|---|---|---|---|\n");
+        for (PopulationAnalysis.ClaimRow r : rows) {
+            PopulationClaims.Claim cl = r.claim();
+            String what = cl.kind() == PopulationClaims.Kind.FIXATION ? "fixation of " + e.strategyNames().get(
+                cl.mutant()) + " in " + e.strategyNames().get(cl.resident()) : "abundance of " + e.strategyNames()
+                .get(cl.strategy());
+            String sim = r.tally() != null ? fmt(r.tally().fixationFrequency()) + " (" + r.tally().fixations() + "/"
+                + r.tally().invasions() + ")" : r.simulated() != null ? fmt(r.simulated().value()) : "";
+            s.append("| ").append(cl.line()).append(" | ").append(r.point().name()).append(" | ").append(what)
+                .append(" | ").append(fmt(cl.value())).append(" | ").append(fmt(r.exact())).append(" | ")
+                .append(cl.tolerance().describe()).append(" | ").append(r.exactAgrees() ? "yes" : "**no**")
+                .append(" | ").append(sim).append(" | ").append(Double.isNaN(r.adjusted()) ? "" : fmt(r.adjusted()))
+                .append(" | ").append(r.verdict()).append(" |\n");
+        }
+        s.append("\n");
     }
 
     private static String rho(PopulationAnalysis.Row r) {
