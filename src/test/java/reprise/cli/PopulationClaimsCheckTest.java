@@ -125,4 +125,32 @@ class PopulationClaimsCheckTest {
         assertEquals(2, r.code());
         assertTrue(r.err().contains("claims.csv: file:"), r.err());
     }
+
+    /**
+     * Rare-mutation abundances of two strategies: the embedded chain of Fudenberg &amp; Imhof (2006), "Imitation
+     * processes with small mutations", J. Econ. Theory 131, 251-262, has for two strategies the stationary
+     * abundance of ALLD rho(ALLD in ALLC) / (rho(ALLD in ALLC) + rho(ALLC in ALLD)), with rho from Traulsen et
+     * al. (2006) as above. Exact side only (no invasions), so nothing random.
+     */
+    @Test
+    void rareMutationAbundanceClaimsAreCheckedAgainstTheExactValue() throws Exception {
+        double up = traulsen(1, 5, 0, 3, 7, 0.3);
+        double down = traulsen(3, 0, 5, 1, 7, 0.3);
+        double alld = up / (up + down);
+        Files.writeString(tmp.resolve("claims.csv"), "strategy,abundance,tolerance\nalld," + alld + ",1e-9\n"
+            + "allc," + (1 - alld) + ",1e-9\n");
+        Path f = tmp.resolve("p.yaml");
+        Files.writeString(f, String.join("\n", "experiment: claimed", "population:", "  strategies: [allc, alld]",
+            "  mutation: rare", "  invasions: 0", "  claims: claims.csv", "grid:", "  size: [7]", "  selection: [0.3]",
+            "  rounds: [4]", "output: " + tmp.resolve("out"), ""));
+        Result r = run("check", f.toString(), "--quiet");
+        assertEquals(0, r.code(), r.out() + r.err());
+        assertTrue(r.out().contains("claims: 0 of 2 disagree"), r.out());
+        Files.writeString(tmp.resolve("claims.csv"), "strategy,abundance\nalld,0.5\n");
+        r = run("check", f.toString(), "--quiet", "--force");
+        assertEquals(1, r.code(), r.out() + r.err());
+        String row = Files.readAllLines(tmp.resolve("out/abundance.csv")).stream().filter(l -> l.contains(",claim,"))
+            .findFirst().orElseThrow();
+        assertTrue(row.contains(",claim,alld,0.5,") && row.contains(",disagrees,"), row);
+    }
 }
