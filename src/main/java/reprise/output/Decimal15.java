@@ -56,29 +56,11 @@ final class Decimal15 {
             sb.append('-');
             v = -v;
         }
-        // floor(log10 v) is floor(e2 log10 2) or one more, e2 the binary exponent
-        int e = (int) Math.floor(Math.getExponent(v) * 0.30102999566398120);
-        long m = Math.round(scale(v, 14 - e));
-        while (m >= HIGH) {
-            e++;
-            m = Math.round(scale(v, 14 - e));
-        }
-        while (m < LOW) {
-            e--;
-            m = Math.round(scale(v, 14 - e));
-        }
+        byte[] digits = new byte[15];
+        int e = digits(v, digits);
         char[] d = new char[15];
-        int hi = (int) (m / 100_000_000L);
-        int lo = (int) (m - hi * 100_000_000L);
-        for (int i = 14; i >= 7; i--) {
-            int q = lo / 10;
-            d[i] = (char) ('0' + lo - 10 * q);
-            lo = q;
-        }
-        for (int i = 6; i >= 0; i--) {
-            int q = hi / 10;
-            d[i] = (char) ('0' + hi - 10 * q);
-            hi = q;
+        for (int i = 0; i < 15; i++) {
+            d[i] = (char) digits[i];
         }
         int nd = 15;
         while (nd > 1 && d[nd - 1] == '0') {
@@ -110,6 +92,41 @@ final class Decimal15 {
     }
 
     /**
+     * The 15 significant decimal digits of a positive finite v in [1e-20, 1e20), rounded to nearest, as
+     * ASCII digits, and its decimal exponent: v is about d[0].d[1]...d[14] x 10^e.
+     *
+     * @param v the value
+     * @param d receives the 15 digits
+     * @return e
+     */
+    private static int digits(double v, byte[] d) {
+        // floor(log10 v) is floor(e2 log10 2) or one more, e2 the binary exponent
+        int e = (int) Math.floor(Math.getExponent(v) * 0.30102999566398120);
+        long m = Math.round(scale(v, 14 - e));
+        while (m >= HIGH) {
+            e++;
+            m = Math.round(scale(v, 14 - e));
+        }
+        while (m < LOW) {
+            e--;
+            m = Math.round(scale(v, 14 - e));
+        }
+        int hi = (int) (m / 100_000_000L);
+        int lo = (int) (m - hi * 100_000_000L);
+        for (int i = 14; i >= 7; i--) {
+            int q = lo / 10;
+            d[i] = (byte) ('0' + lo - 10 * q);
+            lo = q;
+        }
+        for (int i = 6; i >= 0; i--) {
+            int q = hi / 10;
+            d[i] = (byte) ('0' + hi - 10 * q);
+            hi = q;
+        }
+        return e;
+    }
+
+    /**
      * Appends the text of a value as ASCII bytes: the same text as {@link #append(StringBuilder, double)}
      * (tested on many values), written without a char buffer.
      *
@@ -133,29 +150,8 @@ final class Decimal15 {
             out.putUnchecked((byte) '-');
             v = -v;
         }
-        int e = (int) Math.floor(Math.getExponent(v) * 0.30102999566398120);
-        long m = Math.round(scale(v, 14 - e));
-        while (m >= HIGH) {
-            e++;
-            m = Math.round(scale(v, 14 - e));
-        }
-        while (m < LOW) {
-            e--;
-            m = Math.round(scale(v, 14 - e));
-        }
         byte[] d = new byte[15];
-        int hi = (int) (m / 100_000_000L);
-        int lo = (int) (m - hi * 100_000_000L);
-        for (int i = 14; i >= 7; i--) {
-            int q = lo / 10;
-            d[i] = (byte) ('0' + lo - 10 * q);
-            lo = q;
-        }
-        for (int i = 6; i >= 0; i--) {
-            int q = hi / 10;
-            d[i] = (byte) ('0' + hi - 10 * q);
-            hi = q;
-        }
+        int e = digits(v, d);
         int nd = 15;
         while (nd > 1 && d[nd - 1] == '0') {
             nd--;
